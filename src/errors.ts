@@ -83,6 +83,8 @@ export const message = {
     `${option} expects NAME=VALUE with a finite number, got "${text}"`,
   badNumber: (option: string, text: string) => `${option} expects a finite number, got "${text}"`,
   badInteger: (option: string, text: string) => `${option} expects a positive whole number, got "${text}"`,
+  badInterval: (option: string, text: string) =>
+    `${option} expects NAME=LO:HI with finite numbers and LO < HI, got "${text}"`,
   emptyRange: (from: number, to: number) => `--from and --to must differ (both are ${from}${from === to ? '' : `, ${to}`})`,
   cannotRead: (file: string, reason: string) => `${file}: cannot read the file (${reason})`,
 
