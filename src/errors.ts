@@ -88,6 +88,70 @@ export const message = {
   emptyRange: (from: number, to: number) => `--from and --to must differ (both are ${from}${from === to ? '' : `, ${to}`})`,
   cannotRead: (file: string, reason: string) => `${file}: cannot read the file (${reason})`,
 
+  // compile (src/compile): `at` is file:line:column, `values` lists the states then the parameters
+  compileUnknownName: (at: string, name: string) => `${at}: unknown name "${name}"`,
+  compileNonFiniteNumber: (at: string, value: number) => `${at}: the number ${value} is not finite`,
+  compileArgumentCount: (at: string, fn: string, expected: string, got: number) =>
+    `${at}: ${fn}() takes ${expected} argument${expected === '1' ? '' : 's'}, got ${got}`,
+  nonFiniteEquation: (at: string, state: string, value: number, values: string) =>
+    `${at}: the equation for "${state}" gives ${value} at ${values}`,
+  nonFiniteJacobian: (at: string, state: string, by: string, value: number, values: string) =>
+    `${at}: the derivative of the equation for "${state}" with respect to "${by}" gives ${value} at ${values}`,
+
+  // model expressions (src/model/expr.ts): the loader prefixes file:line:column
+  exprEmpty: () => 'the expression is empty',
+  exprCharacter: (ch: string) => `character "${ch}" is not allowed in an expression`,
+  exprPropertyAccess: (name: string) => `property access ".${name}" is not allowed in an expression`,
+  exprAssignment: () => '"=" is not allowed: an expression cannot assign or define anything',
+  exprComparison: (op: string) => `comparison "${op}" is not allowed in an expression`,
+  exprQuote: () => 'quoted text is not allowed in an expression',
+  exprBracket: (ch: string) => `"${ch}" is not allowed in an expression: group with round parentheses`,
+  exprUnknownFunction: (name: string, functions: readonly string[]) =>
+    `unknown function "${name}"${didYouMean(name, functions)} (functions: ${functions.join(', ')})`,
+  exprNotAFunction: (name: string) => `"${name}" is not a function; write "${name}*(...)" to multiply`,
+  exprFunctionAsValue: (name: string) => `function "${name}" needs its arguments in parentheses, as in ${name}(x)`,
+  exprArgumentCount: (name: string, expected: string, got: number) =>
+    `function "${name}" takes ${expected} argument${expected === '1' ? '' : 's'}, got ${got}`,
+  exprImplicitMultiplication: (next: string) => `missing operator before "${next}" (write "*" to multiply)`,
+  exprMissingOperand: (after: string) => `expected a number, name or "(" after "${after}"`,
+  exprLeadingOperator: (op: string) => `an expression cannot start with "${op}"`,
+  exprUnclosed: () => '"(" is never closed',
+  exprUnopened: () => '")" has no matching "("',
+  exprStrayComma: () => '"," is only allowed between the arguments of a function',
+  exprMalformedNumber: (text: string) => `malformed number "${text}"`,
+  exprNumberOverflow: (text: string) => `number "${text}" is too large (it overflows to infinity)`,
+  exprTooDeep: (limit: number) => `expression is nested too deeply (more than ${limit} levels)`,
+  exprTooLarge: (limit: number) => `expression is too large (more than ${limit} levels of operations)`,
+
+  // model file (src/model/loadModel.ts): each is prefixed with file:line:column by message.modelAt
+  modelAt: (ref: SourceRef, what: string) => `${where(ref)}: ${what}`,
+  modelYamlSyntax: (detail: string) => `YAML syntax error: ${detail}`,
+  modelEmpty: () => 'the model file is empty',
+  modelNotMapping: () => 'the model file must be a mapping with the sections states, parameters and equations',
+  modelUnknownSection: (key: string, known: readonly string[]) =>
+    `unknown section "${key}"${didYouMean(key, known)} (sections: ${known.join(', ')})`,
+  modelMissingSection: (key: string) => `missing section "${key}"`,
+  modelSectionNotMapping: (key: string) => `section "${key}" must be a mapping of names to values`,
+  modelNotText: (key: string) => `"${key}" must be text`,
+  modelBadName: (name: string) => `"${name}" is not a valid name (letters, digits and _, not starting with a digit)`,
+  modelReservedName: (name: string) => `"${name}" is a reserved name; choose another`,
+  modelDuplicateName: (name: string, first: string) => `"${name}" is declared twice (first at ${first})`,
+  modelBadNumber: (name: string, field: string, text: string) =>
+    `${field} of "${name}" must be a finite number, got ${text}`,
+  modelUnknownField: (name: string, field: string, known: readonly string[]) =>
+    `unknown field "${field}" for "${name}"${didYouMean(field, known)} (fields: ${known.join(', ')})`,
+  modelMissingField: (name: string, field: string) => `"${name}" needs a "${field}"`,
+  modelBadExpression: (name: string) => `the expression for "${name}" must be text or a number`,
+  modelInExpression: (what: string, section: string, name: string) => `${what} (in ${section}.${name})`,
+  modelUnknownSymbol: (name: string, known: readonly string[]) =>
+    `unknown name "${name}"${didYouMean(name, known)} (known: ${known.join(', ') || 'none'})`,
+  modelNoStates: () => 'the model needs at least one state',
+  modelMissingEquation: (state: string) => `no equation for state "${state}"`,
+  modelExtraEquation: (name: string, states: readonly string[]) =>
+    `equation for "${name}", which is not a state${didYouMean(name, states)} (states: ${states.join(', ')})`,
+  modelUsedBeforeDefined: (name: string) => `definition "${name}" is used before it is defined`,
+  modelDefinitionCycle: (path: readonly string[]) => `definitions form a cycle (${path.join(' -> ')})`,
+
   // numerics
   noEquilibriumAtStart: (param: string, value: number, residual: number, iterations: number) =>
     `no equilibrium at ${param} = ${value}: Newton stopped after ${iterations} iterations with residual ` +
@@ -96,4 +160,12 @@ export const message = {
     `${what} is not finite at ${state} with ${params}`,
   marginFailed: (relative: number, fail: number, param: string) =>
     `design margin ${(relative * 100).toPrecision(3)}% of ${param} is below the --fail-margin ${(fail * 100).toPrecision(3)}%`,
+
+  // portrait (src/portrait/buildPortrait.ts)
+  portraitNeedsTwoStates: (file: string, n: number) =>
+    `${file}: a phase portrait needs two states, but the model has ${n}`,
+  portraitSameState: (file: string, name: string) =>
+    `${file}: --x and --y both name the state "${name}"; choose two different states`,
+  portraitBadWindow: (file: string, name: string, lo: number, hi: number) =>
+    `${file}: the window for state "${name}" needs finite ends with low < high, got ${lo}:${hi}`,
 } as const;
