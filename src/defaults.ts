@@ -22,6 +22,12 @@ export const EQUILIBRIA = {
   boxAbsolute: 10,
   /** Two roots closer than this (relative infinity norm) are the same equilibrium. */
   duplicateTol: 1e-6,
+  /** Roots outside the box by more than this fraction of its width are dropped. */
+  boxTolerance: 0.01,
+  /** Cap on Newton iterations over the whole search (deflated solves and polishing together). */
+  iterationBudget: 4000,
+  /** Deflated solves from one start point (each found root is deflated and the start reused). */
+  solvesPerStart: 4,
 } as const;
 
 /** Pseudo-arclength continuation. Common practice; steps are fractions of the sweep range. */
@@ -34,6 +40,19 @@ export const TRACE = {
   absTol: 1e-10,
   maxIter: 8,
   maxBranches: 32,
+  /** Largest angle between successive unit tangents (scaled coordinates) before the step is halved. */
+  maxTurnDegrees: 12,
+  /** Step growth after an easy correction (at most `easyIterations` Newton steps), and shrink on failure. */
+  growFactor: 1.4,
+  shrinkFactor: 0.5,
+  easyIterations: 3,
+  /** Locating special points: absolute arclength tolerance relative to max(|λ|, 1e-3·|to − from|). */
+  locateRelTol: 1e-11,
+  locateMaxIter: 60,
+  /** Offset of a switched branch's first point from the branch point, as a fraction of ds. */
+  switchOffset: 0.3,
+  /** Eigenvalues with real part below this (relative to max(1, |largest eigenvalue|)) count as stable. */
+  stabilityTol: 1e-10,
 } as const;
 
 /** Design margin thresholds (relative to the nominal value). Common practice. */

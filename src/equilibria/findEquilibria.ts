@@ -1,0 +1,150 @@
+/**
+ * All equilibria f(x, p) = 0 at fixed parameters that a many-start Newton search with deflation
+ * finds in a box (Farrell, Birkisson & Funke 2015; see deflation.ts).
+ *
+ *  1. Starts: the guess (default: the model's start values) first, then EQUILIBRIA.starts points
+ *     of a shifted Halton sequence over the box (default: around the guess, see boxAround).
+ *  2. From each start, Newton on the deflated residual G = M·F; when it converges, the root is
+ *     polished by plain Newton on F (so reported residuals are ‖F‖∞, not ‖G‖∞), deflated, and the
+ *     same start is tried again (at most EQUILIBRIA.solvesPerStart times).
+ *  3. A polished root is kept when Newton on F converged (newton.ts stopping rule), it is not a
+ *     duplicate (‖a − b‖∞ ≤ duplicateTol·max(1, ‖a‖∞, ‖b‖∞)) and it lies in the box widened by
+ *     boxTolerance of its width on each side. Roots outside are still deflated, never reported.
+ *  4. Each kept root is classified from its Jacobian (a non-finite Jacobian drops the root).
+ * Total Newton iterations are capped by EQUILIBRIA.iterationBudget; the diagnostics say whether
+ * the cap was reached. Non-finite values at a start end that start's solve ('non-finite' status).
+ * Result order: lexicographic in the states (first state, then second, …; near-equal coordinates tie).
+ */
+import { EQUILIBRIA, NEWTON } from '../defaults.js';
+import { allFinite, normInf } from '../linalg/norm.js';
+import { newton, type VectorFunction } from '../solve/newton.js';
+import type { Equilibrium, SolveStatus, System } from '../types.js';
+import { classifyEquilibrium } from './classify.js';
+import { deflate } from './deflation.js';
+import { boxAround, startPoints, type Box } from './startPoints.js';
+
+export interface FindEquilibriaOptions {
+  box?: Box;
+  starts?: number;
+  /** Selects the start-point stream: the same value always gives the same starts (default 1). */
+  seed?: number;
+  guess?: Float64Array;
+}
+
+export interface EquilibriumSearchDiagnostics {
+  box: Box;
+  /** Start points used (guess included) out of those planned. */
+  startsUsed: number;
+  startsPlanned: number;
+  /** Deflated Newton solves and their outcomes. */
+  solves: number;
+  outcomes: Record<SolveStatus, number>;
+  /** Polishing by plain Newton that did not converge. */
+  polishFailed: number;
+  duplicates: number;
+  outsideBox: number;
+  nonFiniteJacobian: number;
+  /** Newton iterations used over the whole search, and the cap. */
+  iterations: number;
+  iterationBudget: number;
+  budgetExhausted: boolean;
+}
+
+export interface EquilibriumSearch {
+  equilibria: Equilibrium[];
+  diagnostics: EquilibriumSearchDiagnostics;
+}
+
+interface Root {
+  state: Float64Array;
+  residual: number;
+  iterations: number;
+}
+
+function sameRoot(a: Float64Array, b: Float64Array): boolean {
+  let d = 0;
+  for (let i = 0; i < a.length; i++) d = Math.max(d, Math.abs(a[i]! - b[i]!));
+  return d <= EQUILIBRIA.duplicateTol * Math.max(1, normInf(a), normInf(b));
+}
+
+function insideBox(x: Float64Array, box: Box): boolean {
+  for (let i = 0; i < x.length; i++) {
+    const slack = EQUILIBRIA.boxTolerance * (box.hi[i]! - box.lo[i]!);
+    if (!(x[i]! >= box.lo[i]! - slack && x[i]! <= box.hi[i]! + slack)) return false;
+  }
+  return true;
+}
+
+/** First state, then second, …; coordinates equal within duplicateTol (relative) count as ties. */
+function lexicographic(a: Equilibrium, b: Equilibrium): number {
+  for (let i = 0; i < a.state.length; i++) {
+    const x = a.state[i]!;
+    const y = b.state[i]!;
+    if (Math.abs(x - y) > EQUILIBRIA.duplicateTol * Math.max(1, Math.abs(x), Math.abs(y))) return x - y;
+  }
+  return 0;
+}
+
+export function findEquilibria(system: System, p: Float64Array, opts: FindEquilibriaOptions = {}): EquilibriumSearch {
+  const n = system.n;
+  const guess = opts.guess ?? Float64Array.from(system.info.states.map((s) => s.start));
+  const box = opts.box ?? boxAround(guess, EQUILIBRIA.boxRelative, EQUILIBRIA.boxAbsolute);
+  const starts = [guess, ...startPoints(box, opts.starts ?? EQUILIBRIA.starts, opts.seed ?? 1)];
+  const F: VectorFunction = (x, out) => system.rhs(x, p, out);
+  const J: VectorFunction = (x, out) => system.jacobian(x, p, out);
+  const settings = { power: EQUILIBRIA.deflationPower, shift: EQUILIBRIA.deflationShift };
+  const d: EquilibriumSearchDiagnostics = {
+    box, startsUsed: 0, startsPlanned: starts.length, solves: 0,
+    outcomes: { converged: 0, 'max-iter': 0, singular: 0, 'non-finite': 0, stalled: 0 },
+    polishFailed: 0, duplicates: 0, outsideBox: 0, nonFiniteJacobian: 0,
+    iterations: 0, iterationBudget: EQUILIBRIA.iterationBudget, budgetExhausted: false,
+  };
+  const deflated: Float64Array[] = [];
+  const kept: Root[] = [];
+  const solve = (f: VectorFunction, j: VectorFunction, x0: Float64Array) => {
+    const r = newton(f, j, x0, { absTol: NEWTON.absTol, maxIter: Math.min(NEWTON.maxIter, d.iterationBudget - d.iterations) });
+    d.iterations += r.iterations;
+    return r;
+  };
+  search: for (const start of starts) {
+    d.startsUsed += 1;
+    for (let s = 0; s < EQUILIBRIA.solvesPerStart; s++) {
+      if (d.iterations >= d.iterationBudget) {
+        d.budgetExhausted = true;
+        break search;
+      }
+      const { G, JG } = deflate(F, J, deflated, settings);
+      const r = solve(G, JG, start);
+      d.solves += 1;
+      d.outcomes[r.status] += 1;
+      if (r.status !== 'converged') break;
+      const polished = solve(F, J, r.x);
+      if (polished.status !== 'converged') {
+        d.polishFailed += 1;
+        break;
+      }
+      if (deflated.some((x) => sameRoot(x, polished.x))) {
+        d.duplicates += 1;
+        break;
+      }
+      deflated.push(polished.x);
+      if (!insideBox(polished.x, box)) {
+        d.outsideBox += 1;
+        continue;
+      }
+      kept.push({ state: polished.x, residual: polished.residual, iterations: r.iterations + polished.iterations });
+    }
+  }
+  const equilibria: Equilibrium[] = [];
+  const jac = new Float64Array(n * n);
+  for (const root of kept) {
+    J(root.state, jac);
+    if (!allFinite(jac)) {
+      d.nonFiniteJacobian += 1;
+      continue;
+    }
+    equilibria.push(classifyEquilibrium(jac.slice(), n, root.state, root.residual, root.iterations));
+  }
+  equilibria.sort(lexicographic);
+  return { equilibria, diagnostics: d };
+}
