@@ -1,0 +1,83 @@
+/**
+ * Hopf test functions on eigenvalue lists (Kuznetsov, Elements of Applied Bifurcation Theory,
+ * 3rd ed., §10.2: the bialternate-product test function ψ = ∏_{i<j} (λ_i + λ_j)).
+ *
+ * ψ vanishes when a complex pair λ, λ̄ sits on the imaginary axis (λ + λ̄ = 2 Re λ = 0) — a Hopf
+ * point — but also when two real eigenvalues λ, −λ add to zero: a neutral saddle, which is NOT a
+ * Hopf point. Its sign is ∏_{pairs} sign(Re λ) · ∏_{real i<j} sign(λ_i + λ_j), because every other
+ * factor comes with its complex conjugate and contributes |·|² > 0. The product itself over- and
+ * underflows for n in the tens; `hopfTest` returns sign(ψ) · min_{i<j} |λ_i + λ_j| instead. That
+ * is continuous in the matrix (its sign can only flip where some factor, hence the minimum, is 0)
+ * and it has the same zeros and sign changes as ψ, without overflow for any n.
+ *
+ * How a caller uses these between consecutive branch points P0, P1 (eigenvalues e0, e1):
+ *  1. detect: `hopfBetween(e0, e1, tol)` — hopfTest changes sign AND the number of complex
+ *     eigenvalues with positive real part (`complexUnstableCount`) changes. A neutral saddle flips
+ *     the sign without changing that count; two real unstable eigenvalues that merge into a complex
+ *     pair change the count without flipping the sign. Neither is reported.
+ *  2. locate: `locateRoot(s ↦ hopfTest(eigenvalues at the corrected point at arclength s), s0, s1,
+ *     hopfTest(e0), hopfTest(e1), …)`. (Equivalently, the real part of the critical pair, chosen by
+ *     `criticalPair`, along s.)
+ *  3. confirm: at the located point `isNeutralSaddle(e, tol)` must be false, then compute
+ *     `lyapunovCoefficient` there.
+ */
+import type { Eigenvalue } from '../types.js';
+
+/** sign(ψ) · min_{i<j} |λ_i + λ_j| (see the file comment). 1 when n < 2 (no pair can cross). */
+export function hopfTest(eigs: readonly Eigenvalue[]): number {
+  if (eigs.length < 2) return 1;
+  let sign = 1;
+  let smallest = Infinity;
+  for (let i = 0; i < eigs.length; i++) {
+    const a = eigs[i]!;
+    if (a.im > 0) sign *= Math.sign(a.re);
+    for (let j = i + 1; j < eigs.length; j++) {
+      const b = eigs[j]!;
+      const re = a.re + b.re;
+      const im = a.im + b.im;
+      if (a.im === 0 && b.im === 0) sign *= Math.sign(re);
+      smallest = Math.min(smallest, Math.hypot(re, im));
+    }
+  }
+  return sign === 0 ? 0 : sign * smallest;
+}
+
+/** Number of eigenvalues with |Im| > tol and Re > 0 (even: pairs are counted twice). */
+export function complexUnstableCount(eigs: readonly Eigenvalue[], tol: number): number {
+  let count = 0;
+  for (const e of eigs) if (Math.abs(e.im) > tol && e.re > 0) count++;
+  return count;
+}
+
+/**
+ * True when two real eigenvalues λ, μ (|Im| ≤ tol, |λ| > tol) have |λ + μ| ≤ tol while no complex
+ * eigenvalue (|Im| > tol) has |Re| ≤ tol: the zero of `hopfTest` is a neutral saddle, not a Hopf
+ * point. A suitable tol is about 1e-6 · max(1, max |λ|) (common practice).
+ */
+export function isNeutralSaddle(eigs: readonly Eigenvalue[], tol: number): boolean {
+  const real = eigs.filter((e) => Math.abs(e.im) <= tol);
+  if (eigs.some((e) => Math.abs(e.im) > tol && Math.abs(e.re) <= tol)) return false;
+  for (let i = 0; i < real.length; i++) {
+    for (let j = i + 1; j < real.length; j++) {
+      const a = real[i]!.re;
+      const b = real[j]!.re;
+      if (Math.abs(a) > tol && Math.abs(a + b) <= tol) return true;
+    }
+  }
+  return false;
+}
+
+/** The eigenvalue with Im > tol and the smallest |Re| (the pair closest to the axis), or null. */
+export function criticalPair(eigs: readonly Eigenvalue[], tol: number): Eigenvalue | null {
+  let best: Eigenvalue | null = null;
+  for (const e of eigs) {
+    if (e.im > tol && (best === null || Math.abs(e.re) < Math.abs(best.re))) best = e;
+  }
+  return best;
+}
+
+/** The detection rule of step 1 in the file comment, for consecutive branch points. */
+export function hopfBetween(before: readonly Eigenvalue[], after: readonly Eigenvalue[], tol: number): boolean {
+  const flips = Math.sign(hopfTest(before)) !== Math.sign(hopfTest(after));
+  return flips && complexUnstableCount(before, tol) !== complexUnstableCount(after, tol);
+}
