@@ -1,0 +1,143 @@
+import type { Branch, Margin, MarginSide, SpecialPoint, Trace } from '../types.js';
+
+export interface MarginOptions {
+  parameter: string;
+  nominal: number;
+  warnMargin: number;
+  failMargin: number;
+  operatingState?: Float64Array;
+}
+
+/** Where a branch passes the nominal value: between points k and k+1, at fraction t. */
+interface Crossing {
+  branch: Branch;
+  /** k + t, a fractional point index along the branch. */
+  position: number;
+  state: Float64Array;
+}
+
+/**
+ * The design margin: how far the nominal value of the varied parameter is from the nearest special
+ * points on the branch the plant runs on.
+ *
+ * - Operating branch: with `operatingState`, the crossing of λ = nominal (states interpolated linearly
+ *   between neighbouring points) nearest to it in the scaled distance Σ((x_i − o_i)/max(|o_i|, 1))²,
+ *   over all branches. Without it, the first crossing in arclength order on the first branch that
+ *   started from an equilibrium (origin "start") and spans the nominal value.
+ * - Sides: walking along that branch from the operating point, the first special point in each
+ *   direction. Between special points the parameter moves monotonically (folds are special points),
+ *   so the two lie on opposite sides of the nominal value; each is filed as below or above by its
+ *   parameter (should both fall on one side, the nearer is kept).
+ * - distance = |λ_special − nominal|, relative = distance/|nominal| (distance itself when nominal = 0).
+ * - status: "fail" if the smaller relative distance < failMargin, "warn" if < warnMargin, else "ok";
+ *   "nominal outside range" when no traced branch passes the nominal value; "no special point" when
+ *   the operating branch has none.
+ */
+export function computeMargin(trace: Trace, opts: MarginOptions): Margin {
+  const base = {
+    parameter: opts.parameter, nominal: opts.nominal, warnMargin: opts.warnMargin, failMargin: opts.failMargin,
+  };
+  const crossing = operatingCrossing(trace, opts);
+  if (crossing === null) {
+    return { ...base, branch: null, below: null, above: null, nearestRelative: null, status: 'nominal outside range' };
+  }
+  const { below, above } = nearestSides(crossing, trace.events, opts.nominal);
+  const sides = [below, above].filter((s): s is MarginSide => s !== null);
+  const nearestRelative = sides.length === 0 ? null : Math.min(...sides.map((s) => s.relative));
+  const status: Margin['status'] = nearestRelative === null ? 'no special point'
+    : nearestRelative < opts.failMargin ? 'fail'
+      : nearestRelative < opts.warnMargin ? 'warn' : 'ok';
+  return { ...base, branch: crossing.branch.id, below, above, nearestRelative, status };
+}
+
+function operatingCrossing(trace: Trace, opts: MarginOptions): Crossing | null {
+  const lo = Math.min(trace.settings.from, trace.settings.to);
+  const hi = Math.max(trace.settings.from, trace.settings.to);
+  if (!(opts.nominal >= lo && opts.nominal <= hi)) return null;
+  const target = opts.operatingState;
+  if (target === undefined) {
+    for (const b of trace.branches) {
+      if (b.origin.kind !== 'start') continue;
+      const first = crossings(b, opts.nominal)[0];
+      if (first !== undefined) return first;
+    }
+    return null;
+  }
+  let best: Crossing | null = null;
+  let bestDistance = Infinity;
+  for (const b of trace.branches) {
+    for (const c of crossings(b, opts.nominal)) {
+      const d = scaledDistance(c.state, target);
+      if (d < bestDistance) {
+        bestDistance = d;
+        best = c;
+      }
+    }
+  }
+  return best;
+}
+
+function crossings(branch: Branch, nominal: number): Crossing[] {
+  const pts = branch.points;
+  const out: Crossing[] = [];
+  if (pts.length === 1 && pts[0]!.parameter === nominal) out.push({ branch, position: 0, state: pts[0]!.state });
+  for (let k = 0; k + 1 < pts.length; k++) {
+    const a = pts[k]!;
+    const b = pts[k + 1]!;
+    if ((a.parameter - nominal) * (b.parameter - nominal) > 0) continue;
+    if (b.parameter === nominal && k + 2 < pts.length) continue; // counted as the start of the next segment
+    const t = a.parameter === b.parameter ? 0 : (nominal - a.parameter) / (b.parameter - a.parameter);
+    const state = new Float64Array(a.state.length);
+    for (let i = 0; i < state.length; i++) state[i] = (1 - t) * a.state[i]! + t * (b.state[i] ?? a.state[i]!);
+    out.push({ branch, position: k + t, state });
+  }
+  return out;
+}
+
+function scaledDistance(x: Float64Array, o: Float64Array): number {
+  let sum = 0;
+  for (let i = 0; i < o.length; i++) sum += ((x[i]! - o[i]!) / Math.max(Math.abs(o[i]!), 1)) ** 2;
+  return sum;
+}
+
+/** Fractional index of a special point along its branch. */
+function eventPosition(e: SpecialPoint, branch: Branch): number {
+  const [k] = e.between;
+  const a = branch.points[k]?.parameter;
+  const b = branch.points[k + 1]?.parameter;
+  if (a === undefined || b === undefined || a === b) return k + 0.5;
+  return k + Math.min(1, Math.max(0, (e.parameter - a) / (b - a)));
+}
+
+function nearestSides(
+  crossing: Crossing, events: readonly SpecialPoint[], nominal: number,
+): { below: MarginSide | null; above: MarginSide | null } {
+  let forward: { e: SpecialPoint; gap: number } | null = null;
+  let backward: { e: SpecialPoint; gap: number } | null = null;
+  for (const e of events) {
+    if (e.branch !== crossing.branch.id || !Number.isFinite(e.parameter)) continue;
+    const gap = eventPosition(e, crossing.branch) - crossing.position;
+    if (gap >= 0 && (forward === null || gap < forward.gap)) forward = { e, gap };
+    if (gap < 0 && (backward === null || -gap < backward.gap)) backward = { e, gap: -gap };
+  }
+  let below: MarginSide | null = null;
+  let above: MarginSide | null = null;
+  for (const found of [forward, backward]) {
+    if (found === null) continue;
+    const side = marginSide(found.e, nominal);
+    if (found.e.parameter < nominal) {
+      if (below === null || side.distance < below.distance) below = side;
+    } else if (above === null || side.distance < above.distance) {
+      above = side;
+    }
+  }
+  return { below, above };
+}
+
+function marginSide(e: SpecialPoint, nominal: number): MarginSide {
+  const distance = Math.abs(e.parameter - nominal);
+  return {
+    event: e.id, type: e.type, parameter: e.parameter, distance,
+    relative: nominal === 0 ? distance : distance / Math.abs(nominal),
+  };
+}

@@ -1,0 +1,19 @@
+import type { StopReason } from '../types.js';
+
+/** Why a branch stopped, in words. */
+export function stopWords(reason: StopReason): string {
+  switch (reason) {
+    case 'left range':
+      return 'it left the parameter range';
+    case 'closed loop':
+      return 'it closed on itself (a loop)';
+    case 'point budget':
+      return 'it used up its point budget';
+    case 'step too small':
+      return 'the step length fell below its smallest allowed value';
+    case 'non-finite':
+      return 'the model gave values that are not finite';
+    case 'interrupted':
+      return 'the run was interrupted';
+  }
+}
