@@ -85,6 +85,9 @@ export const message = {
   badInteger: (option: string, text: string) => `${option} expects a positive whole number, got "${text}"`,
   badInterval: (option: string, text: string) =>
     `${option} expects NAME=LO:HI with finite numbers and LO < HI, got "${text}"`,
+  badPositive: (option: string, text: string) => `${option} expects a positive number, got "${text}"`,
+  badWindow: (text: string) =>
+    `--window expects X0:X1,Y0:Y1 with finite numbers and X0 < X1, Y0 < Y1, got "${text}"`,
   emptyRange: (from: number, to: number) => `--from and --to must differ (both are ${from}${from === to ? '' : `, ${to}`})`,
   cannotRead: (file: string, reason: string) => `${file}: cannot read the file (${reason})`,
 
@@ -168,4 +171,23 @@ export const message = {
     `${file}: --x and --y both name the state "${name}"; choose two different states`,
   portraitBadWindow: (file: string, name: string, lo: number, hi: number) =>
     `${file}: the window for state "${name}" needs finite ends with low < high, got ${lo}:${hi}`,
+
+  // continuation (src/trace): warnings collected in trace.warnings
+  traceStartFailed: (param: string, value: number, status: string, residual: number, iterations: number) =>
+    `a start point at ${param} = ${value} was dropped: Newton ${status} after ${iterations} iterations ` +
+    `(residual ${residual.toExponential(2)})`,
+  traceNoTangent: (param: string, value: number) =>
+    `a start point at ${param} = ${value} was dropped: the branch direction there could not be computed`,
+  traceBranchStopped: (branch: number, reason: string, param: string, value: number) =>
+    `branch ${branch} stopped at ${param} = ${value.toPrecision(8)}: ${reason}`,
+  traceLandFailed: (param: string, bound: number, status: string, residual: number, iterations: number) =>
+    `could not place the last point exactly on ${param} = ${bound}: Newton ${status} after ${iterations} ` +
+    `iterations (residual ${residual.toExponential(2)})`,
+  traceLocateFailed: (what: string, branch: number, param: string, a: number, b: number, status: string) =>
+    `a ${what} on branch ${branch} between ${param} = ${a.toPrecision(8)} and ${b.toPrecision(8)} ` +
+    `could not be located (${status}); it is not reported`,
+  traceSwitchFailed: (branch: number, param: string, value: number, reason: string) =>
+    `no new branch started at the branch point of branch ${branch} at ${param} = ${value.toPrecision(8)}: ${reason}`,
+  traceBranchLimit: (limit: number) =>
+    `stopped starting new branches after ${limit} branches (the branch limit); raise it to see more`,
 } as const;

@@ -3,11 +3,13 @@ import type { Branch, ReportBranch, SpecialPoint } from '../types.js';
 export type StabilityInterval = ReportBranch['stability'][number];
 
 /**
- * Maximal runs of equal stability along a branch, in arclength order. Where stability changes between
+ * Maximal runs of equal stability and equal number of unstable eigenvalues along a branch, in
+ * arclength order (so the saddle part between two folds and the unstable part beyond them are
+ * separate runs). Where stability changes between
  * points k and k+1, the boundary is the parameter of a special point located between them (if the
  * trace found one), else the parameter of point k+1. `from`/`to` follow arclength, so `from > to`
- * on a part of the branch that runs backwards after a fold. `unstableCount` is the largest number of
- * unstable eigenvalues seen in the run.
+ * on a part of the branch that runs backwards after a fold. `unstableCount` is the number of
+ * unstable eigenvalues in the run.
  */
 export function stabilityIntervals(branch: Branch, events: readonly SpecialPoint[]): StabilityInterval[] {
   const points = branch.points;
@@ -19,9 +21,8 @@ export function stabilityIntervals(branch: Branch, events: readonly SpecialPoint
   };
   for (let k = 1; k < points.length; k++) {
     const p = points[k]!;
-    if (p.stable === current.stable) {
+    if (p.stable === current.stable && p.unstableCount === current.unstableCount) {
       current.to = p.parameter;
-      current.unstableCount = Math.max(current.unstableCount, p.unstableCount);
       continue;
     }
     const boundary = boundaryParameter(branch.id, k - 1, events) ?? p.parameter;

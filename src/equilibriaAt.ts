@@ -1,0 +1,18 @@
+/**
+ * Every equilibrium of a model at fixed parameter values, from the model itself:
+ *   Model ─prepare→ system, parameters, guess ─findEquilibria→ classified equilibria.
+ */
+import { findEquilibria, type EquilibriumSearch } from './equilibria/findEquilibria.js';
+import { prepare, searchBox, type Overrides, type Prepared } from './setup.js';
+import type { Model } from './types.js';
+
+export interface EquilibriaAtOptions extends Overrides {
+  /** Search ranges of single states, [name, lo, hi]; the other states keep the default box. */
+  box?: readonly [string, number, number][];
+}
+
+export function equilibriaAt(model: Model, opts: EquilibriaAtOptions = {}): Prepared & { search: EquilibriumSearch } {
+  const prepared = prepare(model, opts);
+  const box = searchBox(model, prepared.guess, opts.box ?? []);
+  return { ...prepared, search: findEquilibria(prepared.system, prepared.params, { box, guess: prepared.guess }) };
+}
