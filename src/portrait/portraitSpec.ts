@@ -26,6 +26,19 @@ export interface PortraitSpecOptions {
 /** Common practice: a plot area about the size of a laptop half-screen. */
 export const PORTRAIT_SPEC_DEFAULTS: PortraitSpecOptions = { width: 560, height: 440 };
 
+/**
+ * Stable layer names. Vega draws the layer named `n` as the mark `n_marks`, and that name is a
+ * class of the mark's SVG group (the browser tests find the marks by it).
+ */
+export const PORTRAIT_MARKS = {
+  arrows: 'bt_portrait_arrows',
+  arrowHeads: 'bt_portrait_arrow_heads',
+  trajectories: 'bt_portrait_trajectories',
+  nullclines: 'bt_portrait_nullclines',
+  manifolds: 'bt_portrait_manifolds',
+  equilibria: 'bt_portrait_equilibria',
+} as const;
+
 /** Colours (an own choice): nullclines of x and y, stable and unstable manifolds. */
 const CURVE_COLOURS = ['#2a7f62', '#c26a1b', '#3b5bdb', '#c2255c'];
 const TRAJECTORY_COLOUR = '#9a9a9a';
@@ -94,11 +107,13 @@ export function portraitSpec(data: PortraitData, opts: PortraitSpecOptions = POR
     height: opts.height,
     layer: [
       {
+        name: PORTRAIT_MARKS.arrows,
         data: { values: arrows },
         mark: { type: 'rule', clip: true, color: ARROW_COLOUR, strokeWidth: 1 },
         encoding: { x, y, x2: { field: 'x2' }, y2: { field: 'y2' }, opacity: speedOpacity },
       },
       {
+        name: PORTRAIT_MARKS.arrowHeads,
         data: { values: arrows },
         mark: { type: 'point', shape: 'triangle-up', filled: true, clip: true, color: ARROW_COLOUR, size: 18 },
         encoding: {
@@ -107,21 +122,25 @@ export function portraitSpec(data: PortraitData, opts: PortraitSpecOptions = POR
         },
       },
       {
+        name: PORTRAIT_MARKS.trajectories,
         data: { values: lineRows(trajectoryLines) },
         mark: { type: 'line', clip: true, color: TRAJECTORY_COLOUR, strokeWidth: 0.8, opacity: 0.8 },
         encoding: { x, y, detail: { field: 'id', type: 'nominal' }, order: { field: 'i', type: 'quantitative' } },
       },
       {
+        name: PORTRAIT_MARKS.nullclines,
         data: { values: lineRows(nullclineLines) },
         mark: { type: 'line', clip: true, strokeWidth: 2 },
         encoding: { x, y, color, detail: { field: 'id', type: 'nominal' }, order: { field: 'i', type: 'quantitative' } },
       },
       {
+        name: PORTRAIT_MARKS.manifolds,
         data: { values: lineRows(manifoldLines) },
         mark: { type: 'line', clip: true, strokeWidth: 2.6 },
         encoding: { x, y, color, detail: { field: 'id', type: 'nominal' }, order: { field: 'i', type: 'quantitative' } },
       },
       {
+        name: PORTRAIT_MARKS.equilibria,
         data: { values: equilibria },
         mark: { type: 'point', filled: true, clip: true, size: 110, color: '#111111', stroke: '#ffffff', strokeWidth: 1 },
         encoding: {
