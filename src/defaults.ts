@@ -26,6 +26,8 @@ export const EQUILIBRIA = {
   boxTolerance: 0.01,
   /** Cap on Newton iterations over the whole search (deflated solves and polishing together). */
   iterationBudget: 4000,
+  /** Start points for the further searches of a sweep (at the nominal value and the end of the range). */
+  extraStarts: 16,
   /** Deflated solves from one start point (each found root is deflated and the start reused). */
   solvesPerStart: 4,
 } as const;
@@ -35,7 +37,7 @@ export const TRACE = {
   /** Initial, smallest and largest step as fractions of |to − from|. */
   dsFraction: 0.01,
   dsMinFraction: 1e-8,
-  dsMaxFraction: 0.05,
+  dsMaxFraction: 0.02,
   maxPoints: 2000,
   absTol: 1e-10,
   maxIter: 8,
@@ -53,6 +55,16 @@ export const TRACE = {
   switchOffset: 0.3,
   /** Eigenvalues with real part below this (relative to max(1, |largest eigenvalue|)) count as stable. */
   stabilityTol: 1e-10,
+  /** A start within this fraction of the local step of a traced branch, moving along it (|cos| above
+   *  sameDirection), lies on that branch and is not traced again. */
+  onBranch: 0.02,
+  sameDirection: 0.98,
+  /** Two located special points of one kind closer than this (relative to max(|to − from|, ‖z‖∞)) are one. */
+  samePoint: 1e-5,
+  /** At a branch point, a branch whose |t_λ| is below this fraction of the other branch's turns
+   *  there (pitchfork; the state of a located point on a turning branch is accurate only to about
+   *  the square root of the parameter tolerance, so its t_λ is small but not zero). */
+  turningTol: 1e-3,
 } as const;
 
 /** Design margin thresholds (relative to the nominal value). Common practice. */

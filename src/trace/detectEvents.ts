@@ -1,0 +1,109 @@
+/**
+ * Scans a finished branch for sign changes of the test functions between consecutive points and
+ * locates each one (locateOnBranch.ts). Test functions (Kuznetsov, Elements of Applied Bifurcation
+ * Theory, 3rd ed., §10.2; Allgower & Georg 1990, §8.1):
+ *   branch point  τ_bp = det [F_z; tᵀ]   (checked first: at a simple branch point t_λ need not vanish,
+ *                                         and where a branch turns at one, t_λ changes sign too);
+ *   fold          τ_f  = t_λ, the parameter component of the unit tangent (foldBetween: an exact
+ *                 zero, as at a start on a fold, counts once);
+ *   Hopf          the bialternate-product sign change together with a change in the number of
+ *                 unstable complex eigenvalues (hopfBetween, src/detect/hopfTest.ts: a neutral
+ *                 saddle flips the sign only), located on the real part of the critical pair
+ *                 (pairRealPart.ts).
+ */
+import { eigenvalues } from '../linalg/eig.js';
+import type { Eigenvalue, EventType } from '../types.js';
+import type { ExtendedSystem } from './extendedSystem.js';
+import { criticalPair, hopfBetween } from '../detect/hopfTest.js';
+import { pairRealPart } from './pairRealPart.js';
+import { locateOnBranch, type BranchTest, type Located } from './locateOnBranch.js';
+import type { RawPoint } from './rawPoint.js';
+import type { Workspace } from './workspace.js';
+
+export interface FoundEvent {
+  type: Extract<EventType, 'fold' | 'hopf' | 'branch-point'>;
+  between: [number, number];
+  testBefore: number;
+  testAfter: number;
+  located: Located;
+  eigenvalues: Eigenvalue[];
+}
+
+export interface DetectOptions {
+  absTol: number;
+  maxIter: number;
+  /** Absolute arclength tolerance of the locator at parameter value λ. */
+  tol: (lambda: number) => number;
+  rootMaxIter: number;
+  /** Brackets not to locate in (e.g. around a branch point already found from another branch). */
+  skip?: (type: FoundEvent['type'], a: RawPoint, b: RawPoint) => boolean;
+}
+
+export function detectEvents(
+  ext: ExtendedSystem, work: Workspace, points: readonly RawPoint[], opts: DetectOptions,
+): { events: FoundEvent[]; failures: { type: EventType; between: [number, number]; status: string }[] } {
+  const { n } = ext;
+  const events: FoundEvent[] = [];
+  const failures: { type: EventType; between: [number, number]; status: string }[] = [];
+  const record = (
+    type: FoundEvent['type'], i: number, test: BranchTest, gA: number, gB: number,
+  ): void => {
+    const a = points[i]!;
+    const b = points[i + 1]!;
+    if (opts.skip?.(type, a, b) === true) return;
+    const located = locateOnBranch(ext, work, a, b, test, gA, gB, { ...opts, tol: opts.tol(a.z[n]!) });
+    if (located.status !== 'converged' && located.status !== 'max-iter') {
+      failures.push({ type, between: [i, i + 1], status: located.status });
+      return;
+    }
+    events.push({ type, between: [i, i + 1], testBefore: gA, testAfter: gB, located, eigenvalues: eigenvalues(ext.jx, n) });
+  };
+  for (let i = 0; i + 1 < points.length; i++) {
+    const a = points[i]!;
+    const b = points[i + 1]!;
+    if (a.detSign * b.detSign < 0) {
+      const ref = Math.max(a.detLog, b.detLog);
+      const bp: BranchTest = (_z, _t, tangent) =>
+        tangent.singular ? 0 : tangent.ok ? tangent.detSign * Math.exp(tangent.detLog - ref) : NaN;
+      record('branch-point', i, bp, a.detSign * Math.exp(a.detLog - ref), b.detSign * Math.exp(b.detLog - ref));
+    } else if (foldBetween(points, i, n)) {
+      record('fold', i, (_z, t, tangent) => (tangent.ok ? t[n]! : NaN), a.t[n]!, b.t[n]!);
+    }
+    const imagTol = 1e-8 * (1 + Math.max(size(a.eigenvalues), size(b.eigenvalues)));
+    if (hopfBetween(a.eigenvalues, b.eigenvalues, imagTol)) {
+      const pair = criticalPair(a.eigenvalues, imagTol) ?? criticalPair(b.eigenvalues, imagTol);
+      if (pair === null) continue;
+      const omega = pair.im;
+      const gA = pairRealPart(a.eigenvalues, omega);
+      const gB = pairRealPart(b.eigenvalues, omega);
+      if (!(gA * gB < 0)) continue;
+      const hopf: BranchTest = (_z, _t, tangent) =>
+        tangent.ok || tangent.singular ? pairRealPart(eigenvalues(ext.jx, n), omega) : NaN;
+      record('hopf', i, hopf, gA, gB);
+    }
+  }
+  return { events, failures };
+}
+
+/**
+ * t_λ changes sign between points i and i + 1. An exact zero counts once: at the first point of
+ * the branch (a start at a fold), or at the later point of the bracket, except for the repeated
+ * first point that closes a loop.
+ */
+function foldBetween(points: readonly RawPoint[], i: number, n: number): boolean {
+  const a = points[i]!.t[n]!;
+  const b = points[i + 1]!.t[n]!;
+  if (a * b < 0) return true;
+  if (a === 0) return i === 0 && b !== 0;
+  if (b !== 0) return false;
+  const last = points.length - 1;
+  const closes = i + 1 === last && points[last]!.z.every((v, j) => v === points[0]!.z[j]);
+  return !closes;
+}
+
+/** Largest eigenvalue modulus. */
+function size(values: readonly Eigenvalue[]): number {
+  let r = 0;
+  for (const v of values) r = Math.max(r, Math.hypot(v.re, v.im));
+  return r;
+}

@@ -1,0 +1,27 @@
+/**
+ * Warnings for a branch whose walks did not end in the ordinary way (leaving the parameter range
+ * or closing into a loop): where each direction stopped and why.
+ */
+import { message } from '../errors.js';
+import type { StopReason } from '../types.js';
+import type { ExtendedSystem } from './extendedSystem.js';
+import type { WalkedBranch } from './traceBothWays.js';
+
+const WHY: Record<StopReason, string> = {
+  'left range': 'it left the parameter range',
+  'closed loop': 'it closed into a loop',
+  'point budget': 'the point budget per branch is used up; raise it to follow the branch further',
+  'step too small': 'the step length fell below its smallest value (the corrector kept failing)',
+  'non-finite': 'the model gave a value that is not finite',
+  interrupted: 'interrupted',
+};
+
+export function reportStops(ext: ExtendedSystem, walked: WalkedBranch, id: number, name: string, warnings: string[]): void {
+  const { points, stops } = walked;
+  const ends = [points[0], points[points.length - 1]];
+  stops.forEach((stop, side) => {
+    const end = ends[side];
+    if (stop === null || stop === 'left range' || stop === 'closed loop' || stop === 'interrupted' || end === undefined) return;
+    warnings.push(message.traceBranchStopped(id, WHY[stop], name, end.z[ext.n]!));
+  });
+}

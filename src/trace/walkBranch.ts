@@ -1,0 +1,103 @@
+/**
+ * One direction of pseudo-arclength continuation (Keller 1977; Allgower & Georg 1990, ch. 2):
+ * Euler predictor z + ds·t, corrector on the hyperplane orthogonal to t (correctPoint.ts), new
+ * tangent from the bordered system (tangentAt.ts).
+ *
+ * Step control (common practice): halve ds when the corrector fails or the tangent turns by more
+ * than maxTurnDegrees (keeps the predictor error, about κ·ds²/2, small against the branch
+ * spacing); grow it by growFactor after a correction of at most easyIterations Newton steps;
+ * clamp to [dsMin, dsMax].
+ *
+ * Stops: 'left range' (last point landed exactly on the bound, landOnBound.ts), 'closed loop'
+ * (back within 2·ds of the first point, tangent aligned, after having been at least four times
+ * as far; the first point is appended again to close the curve), 'point budget',
+ * 'step too small', 'non-finite', 'interrupted'.
+ */
+import { TRACE } from '../defaults.js';
+import { message } from '../errors.js';
+import type { StopReason, TraceSettings } from '../types.js';
+import { correctPoint } from './correctPoint.js';
+import type { ExtendedSystem } from './extendedSystem.js';
+import { landOnBound } from './landOnBound.js';
+import { rawPoint, type RawPoint } from './rawPoint.js';
+import { tangentAt } from './tangentAt.js';
+import { distance, dot, type Workspace } from './workspace.js';
+
+export interface WalkContext {
+  ext: ExtendedSystem;
+  work: Workspace;
+  settings: TraceSettings;
+  /** Parameter range [lo, hi]. */
+  lo: number;
+  hi: number;
+  /** Name of the varied parameter (for warnings). */
+  name: string;
+  /** Called after every point; returns true to stop ('interrupted'). */
+  tick: (points: number, parameter: number) => boolean;
+  warnings: string[];
+}
+
+export interface Walk {
+  points: RawPoint[];
+  stopped: StopReason;
+}
+
+export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): Walk {
+  const { ext, work, settings, lo, hi } = ctx;
+  const { n, m } = ext;
+  const points: RawPoint[] = [start];
+  const z = new Float64Array(m);
+  const zHat = new Float64Array(m);
+  const tNew = new Float64Array(m);
+  const minTurnCos = Math.cos((TRACE.maxTurnDegrees * Math.PI) / 180);
+  let cur = start;
+  let ds = settings.ds;
+  let farthest = 0;
+  let sawNonFinite = false;
+  for (;;) {
+    if (points.length >= budget) return { points, stopped: 'point budget' };
+    if (ctx.tick(points.length, cur.z[n]!)) return { points, stopped: 'interrupted' };
+    for (let j = 0; j < m; j++) z[j] = cur.z[j]! + ds * cur.t[j]!;
+    const c = correctPoint(ext, z, zHat, cur.t, { absTol: settings.absTol, maxIter: settings.maxIter, maxDistance: ds }, work);
+    const tangent = c.status === 'converged' ? tangentAt(ext, z, cur.t, tNew, work) : undefined;
+    if (tangent === undefined || !tangent.ok || dot(cur.t, tNew) < minTurnCos) {
+      sawNonFinite ||= c.status === 'non-finite';
+      ds *= TRACE.shrinkFactor;
+      if (ds < settings.dsMin) return { points, stopped: sawNonFinite ? 'non-finite' : 'step too small' };
+      continue;
+    }
+    sawNonFinite = false;
+    const step = distance(z, cur.z);
+    const lambda = z[n]!;
+    if (lambda < lo || lambda > hi) {
+      const bound = lambda < lo ? lo : hi;
+      if (cur.z[n] !== bound) landPoint(ctx, cur, z, bound, points);
+      return { points, stopped: 'left range' };
+    }
+    const point = rawPoint(ext, z, tNew, tangent, { residual: c.residual, iterations: c.iterations, step, s: cur.s + step });
+    points.push(point);
+    cur = point;
+    const fromFirst = distance(z, start.z);
+    farthest = Math.max(farthest, fromFirst);
+    const radius = 2 * Math.max(ds, step);
+    if (farthest > 4 * radius && fromFirst <= radius && dot(tNew, start.t) > 0.7) {
+      points.push({ ...start, step: fromFirst, s: cur.s + fromFirst });
+      return { points, stopped: 'closed loop' };
+    }
+    if (c.iterations <= TRACE.easyIterations) ds = Math.min(ds * TRACE.growFactor, settings.dsMax);
+  }
+}
+
+/** Appends the point on the bound between `cur` (inside) and `outside`, if Newton converges there. */
+function landPoint(ctx: WalkContext, cur: RawPoint, outside: Float64Array, bound: number, points: RawPoint[]): void {
+  const { ext, work, settings } = ctx;
+  const { z, result } = landOnBound(ext, cur.z, outside, bound, settings);
+  const t = new Float64Array(ext.m);
+  const tangent = result.status === 'converged' ? tangentAt(ext, z, cur.t, t, work) : undefined;
+  if (tangent === undefined || !tangent.ok) {
+    ctx.warnings.push(message.traceLandFailed(ctx.name, bound, result.status, result.residual, result.iterations));
+    return;
+  }
+  const step = distance(z, cur.z);
+  points.push(rawPoint(ext, z, t, tangent, { residual: result.residual, iterations: result.iterations, step, s: cur.s + step }));
+}

@@ -1,0 +1,198 @@
+/**
+ * Behaviour of the continuation on systems with closed-form branches: turning through folds,
+ * closed curves, neutral saddles, reversed sweeps and interruption.
+ */
+import { describe, expect, it } from 'vitest';
+import { TRACE } from '../../src/defaults.js';
+import { hopfTest } from '../../src/detect/hopfTest.js';
+import { message } from '../../src/errors.js';
+import { traceBranches } from '../../src/trace/traceBranches.js';
+import { traceSettings } from '../../src/trace/traceSettings.js';
+import type { SpecialPoint } from '../../src/types.js';
+import { makeSystem } from '../helpers/handSystem.js';
+import { bisect } from './bisect.js';
+import { expectClose } from './close.js';
+import { expectAllConverged } from './expectTraced.js';
+import { scalarSystem, withStableDirection } from './traceSystems.js';
+
+/** x' = λ + x − x³, y' = −y: equilibria λ = x³ − x, an S between the folds at x = ∓1/√3. */
+const sCurve = withStableDirection((x, l) => l + x - x ** 3, (x) => 1 - 3 * x * x, () => 1);
+/** The equilibrium x of the S-curve at λ on its outer part (x³ − x − λ = 0 with |x| > 1). */
+const outerRoot = (l: number): number => (l < 0 ? bisect((x) => x ** 3 - x - l, -3, -1) : bisect((x) => x ** 3 - x - l, 1, 3));
+
+const summary = (events: readonly SpecialPoint[]): [string, number][] =>
+  events.map((e) => [e.type, e.parameter] as [string, number]).sort((a, b) => a[1] - b[1]);
+
+describe('traceBranches', () => {
+  it('follows an S-shaped branch through both folds and stops on both range ends exactly', () => {
+    // Analytic: λ = x³ − x has dλ/dx = 3x² − 1 = 0 at x = ∓1/√3, λ = ±2/(3√3). Fold coefficient
+    // (src/detect/foldCoefficient.ts): q = p = e1, B(q,q) = g_xx = −6x, so a = −3x = ±√3.
+    const trace = traceBranches(sCurve, Float64Array.of(0), traceSettings(0, -1, 1), [Float64Array.of(outerRoot(-1), 0)]);
+    expect(trace.branches).toHaveLength(1);
+    const branch = trace.branches[0]!;
+    expect(branch.stopped).toBe('left range');
+    expect(branch.points[0]!.parameter).toBe(-1);
+    expect(branch.points[branch.points.length - 1]!.parameter).toBe(1);
+    expectClose(branch.points[branch.points.length - 1]!.state[0]!, outerRoot(1), { rel: 1e-10 }, 'last point x (analytic root)');
+    expect(trace.events.map((e) => e.type)).toEqual(['fold', 'fold']);
+    const lf = 2 / (3 * Math.sqrt(3));
+    expectClose(trace.events[0]!.parameter, lf, { rel: 1e-10 }, 'first fold λ = 2/(3√3) (analytic)');
+    expectClose(trace.events[1]!.parameter, -lf, { rel: 1e-10 }, 'second fold λ = −2/(3√3) (analytic)');
+    expectClose(trace.events[0]!.foldCoefficient!, Math.sqrt(3), { rel: 1e-5 }, 'a = √3 (analytic)');
+    expectClose(trace.events[1]!.foldCoefficient!, -Math.sqrt(3), { rel: 1e-5 }, 'a = −√3 (analytic)');
+    // Stability: stable on the outer parts, one unstable eigenvalue between the folds (analytic: g_x = 1 − 3x²).
+    for (const q of branch.points) expect(q.unstableCount).toBe(1 - 3 * q.state[0]! ** 2 > 1e-6 ? 1 : 0);
+    expect(trace.warnings).toEqual([]);
+    expectAllConverged(trace);
+  });
+
+  it('stops a closed branch with "closed loop" and finds both of its folds', () => {
+    // Analytic: x' = 1 − λ² − x² has the circle λ² + x² = 1 as its equilibria. A closed curve that
+    // starts at λ = from must touch λ = from, so the sweep over [−1, 2] starts at the fold (−1, 0).
+    const circle = withStableDirection((x, l) => 1 - l * l - x * x, (x) => -2 * x, (_x, l) => -2 * l);
+    const trace = traceBranches(circle, Float64Array.of(0), traceSettings(0, -1, 2), [Float64Array.of(0, 0)]);
+    expect(trace.branches).toHaveLength(1);
+    expect(trace.branches[0]!.stopped).toBe('closed loop');
+    const folds = summary(trace.events);
+    expect(folds.map((f) => f[0])).toEqual(['fold', 'fold']);
+    expectClose(folds[0]![1], -1, { rel: 1e-10 }, 'fold at λ = −1 (analytic)');
+    expectClose(folds[1]![1], 1, { rel: 1e-10 }, 'fold at λ = 1 (analytic)');
+    for (const q of trace.branches[0]!.points) {
+      expectClose(q.parameter ** 2 + q.state[0]! ** 2, 1, { abs: 1e-9 }, 'on the unit circle (analytic)');
+    }
+    expect(trace.warnings).toEqual([]);
+    expectAllConverged(trace);
+  });
+
+  it('reports no Hopf point at a neutral saddle (real eigenvalues μ and −1 with μ crossing 1)', () => {
+    // Analytic: x1' = μ(x1 − 1), x2' = −x2 + x1 − 1, (x3, x4) a stable focus with eigenvalues
+    // −0.5 ± 2i. Equilibrium (1, 0, 0, 0) for all μ; eigenvalues μ, −1, −0.5 ± 2i. At μ = 1 the real
+    // pair sums to zero, so the bialternate-product test function changes sign, but no eigenvalue
+    // crosses the imaginary axis: no Hopf point (and no fold or branch point: μ ≠ 0 on [0.5, 1.5]).
+    const system = makeSystem({
+      n: 4,
+      parameters: { mu: 1 },
+      rhs: (x, p, out) => {
+        out[0] = p[0]! * (x[0]! - 1);
+        out[1] = -x[1]! + x[0]! - 1;
+        out[2] = -0.5 * x[2]! - 2 * x[3]!;
+        out[3] = 2 * x[2]! - 0.5 * x[3]!;
+      },
+      jacobian: (_x, p, out) => { out.set([p[0]!, 0, 0, 0, 1, -1, 0, 0, 0, 0, -0.5, -2, 0, 0, 2, -0.5]); },
+    });
+    const trace = traceBranches(system, Float64Array.of(0.5), traceSettings(0, 0.5, 1.5), [Float64Array.of(1, 0, 0, 0)]);
+    expect(trace.branches).toHaveLength(1);
+    expect(trace.branches[0]!.stopped).toBe('left range');
+    // The test function that a neutral saddle fools does change sign along the branch ...
+    const points = trace.branches[0]!.points;
+    expect(Math.sign(hopfTest(points[0]!.eigenvalues))).toBe(-Math.sign(hopfTest(points[points.length - 1]!.eigenvalues)));
+    // ... but nothing is reported.
+    expect(trace.events).toEqual([]);
+    expectAllConverged(trace);
+  });
+
+  it('finds the same special points when the sweep runs from high to low', () => {
+    const forward = traceBranches(sCurve, Float64Array.of(0), traceSettings(0, -1, 1), [Float64Array.of(outerRoot(-1), 0)]);
+    const backward = traceBranches(sCurve, Float64Array.of(0), traceSettings(0, 1, -1), [Float64Array.of(outerRoot(1), 0)]);
+    const a = summary(forward.events);
+    const b = summary(backward.events);
+    expect(b.map((e) => e[0])).toEqual(a.map((e) => e[0]));
+    // Same points up to the location tolerance (TRACE.locateRelTol, src/defaults.ts).
+    a.forEach((e, i) => expectClose(b[i]![1], e[1], { rel: 1e-10 }, `event ${i} parameter`));
+    expect(backward.branches[0]!.points[0]!.parameter).toBe(1);
+    expectAllConverged(backward);
+  });
+
+  it('returns a partial trace marked interrupted when shouldStop says so, keeping finished branches and events', () => {
+    // x' = λx − x³ (pitchfork at 0): branch 0 is x = 0, branch 1 the switched parabola x² = λ.
+    const system = scalarSystem((u, l) => l * u - u ** 3, (u, l) => l - 3 * u * u, (u) => u, (u) => -6 * u, () => 1);
+    const settings = traceSettings(0, -1, 1);
+    let firstBranchTicks = 0;
+    const full = traceBranches(system, Float64Array.of(0), settings, [Float64Array.of(0)], {
+      onProgress: (p) => { if (p.branch === 1) firstBranchTicks++; },
+    });
+    expect(full.interrupted).toBe(false);
+    expect(full.branches).toHaveLength(2);
+    let calls = 0;
+    let progress = 0;
+    const partial = traceBranches(system, Float64Array.of(0), settings, [Float64Array.of(0)], {
+      onProgress: () => { progress++; },
+      shouldStop: () => ++calls > firstBranchTicks + 5,
+    });
+    expect(partial.interrupted).toBe(true);
+    expect(progress).toBe(calls); // both hooks once per computed point
+    expect(partial.branches).toHaveLength(2);
+    expect(partial.branches[0]!.stopped).toBe('left range');
+    expect(partial.branches[1]!.stopped).toBe('interrupted');
+    expect(partial.branches[1]!.points.length).toBeLessThan(full.branches[1]!.points.length);
+    expect(partial.events.map((e) => e.type)).toEqual(['pitchfork']);
+    expect(partial.events[0]!.parameter).toBe(full.events[0]!.parameter);
+  });
+});
+
+describe('traceBranches limits', () => {
+  it('stops starting branches at maxBranches and says so in the warnings', () => {
+    // x' = λx − x³: the pitchfork at λ = 0 would start a second branch (analytic: x² = λ).
+    const system = scalarSystem((u, l) => l * u - u ** 3, (u, l) => l - 3 * u * u, (u) => u, (u) => -6 * u, () => 1);
+    const trace = traceBranches(system, Float64Array.of(0), traceSettings(0, -1, 1, { maxBranches: 1 }), [Float64Array.of(0)]);
+    expect(trace.branches).toHaveLength(1);
+    expect(trace.events.map((e) => e.type)).toEqual(['pitchfork']);
+    expect(trace.events[0]!.newBranches).toEqual([]);
+    expect(trace.warnings).toEqual([message.traceBranchLimit(1)]);
+  });
+
+  it('reports a branch that ran out of points, and where', () => {
+    // The S-curve needs far more than 10 points to cross [−1, 1].
+    const trace = traceBranches(sCurve, Float64Array.of(0), traceSettings(0, -1, 1, { maxPoints: 10 }), [Float64Array.of(outerRoot(-1), 0)]);
+    const branch = trace.branches[0]!;
+    expect(branch.stopped).toBe('point budget');
+    expect(branch.points).toHaveLength(10);
+    const last = branch.points[branch.points.length - 1]!;
+    expect(trace.warnings).toEqual([
+      message.traceBranchStopped(0, 'the point budget per branch is used up; raise it to follow the branch further', 'lambda', last.parameter),
+    ]);
+  });
+});
+
+describe('traceBranches start problems', () => {
+  it('drops a start where Newton finds no equilibrium, with a warning', () => {
+    // Analytic: x' = λ + x² has no equilibrium for λ > 0, so nothing can be traced from λ = 1.
+    const system = scalarSystem((u, l) => l + u * u, (u) => 2 * u, () => 1, () => 2, () => 0);
+    const trace = traceBranches(system, Float64Array.of(0), traceSettings(0, 1, 2), [Float64Array.of(0.5)]);
+    expect(trace.branches).toEqual([]);
+    expect(trace.events).toEqual([]);
+    expect(trace.warnings).toHaveLength(1);
+    const prefix = message.traceStartFailed('lambda', 1, 'STATUS', 0, 0).split('Newton')[0]!;
+    expect(trace.warnings[0]!.startsWith(prefix)).toBe(true);
+  });
+});
+
+describe('traceBranches at the edge of the model\'s domain', () => {
+  it('stops with "non-finite" where the branch runs into x < 0 of x\' = √x − λ, and warns', () => {
+    // Analytic: equilibria x = λ² for λ ≥ 0 only; at (0, 0) the branch reaches the edge of the
+    // domain of √x (f and f_x are NaN or infinite beyond it).
+    const system = scalarSystem((u, l) => Math.sqrt(u) - l, (u) => 0.5 / Math.sqrt(u), () => -1, (u) => -0.25 * u ** -1.5, () => 0);
+    const trace = traceBranches(system, Float64Array.of(0), traceSettings(0, 1, -1), [Float64Array.of(1)]);
+    const branch = trace.branches[0]!;
+    expect(branch.stopped).toBe('non-finite');
+    const last = branch.points[branch.points.length - 1]!;
+    expect(last.parameter).toBeLessThan(1e-3); // close to the edge λ = 0 (analytic)
+    expect(last.parameter).toBeGreaterThan(0);
+    expect(trace.warnings).toEqual([
+      message.traceBranchStopped(0, 'the model gave a value that is not finite', 'lambda', last.parameter),
+    ]);
+    expectAllConverged(trace);
+  });
+});
+
+describe('traceSettings', () => {
+  it('scales the step lengths by the sweep range and copies the other defaults', () => {
+    const s = traceSettings(2, 5, 1, { maxPoints: 7 });
+    // src/defaults.ts TRACE: steps are fractions of |to − from| = 4.
+    expect(s).toEqual({
+      parameterIndex: 2, from: 5, to: 1, ds: TRACE.dsFraction * 4, dsMin: TRACE.dsMinFraction * 4,
+      dsMax: TRACE.dsMaxFraction * 4, maxPoints: 7, absTol: TRACE.absTol, maxIter: TRACE.maxIter,
+      maxBranches: TRACE.maxBranches,
+    });
+  });
+});
