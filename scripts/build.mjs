@@ -17,7 +17,8 @@ const common = {
   logLevel: 'warning',
 };
 
-rmSync(new URL('../dist', import.meta.url), { recursive: true, force: true });
+const bundleOnly = process.argv.includes('--bundle-only');
+if (!bundleOnly) rmSync(new URL('../dist', import.meta.url), { recursive: true, force: true });
 await build({
   ...common,
   entryPoints: ['src/cli.ts'],
@@ -25,5 +26,10 @@ await build({
   banner: { js: '#!/usr/bin/env node\n' + common.banner.js },
 });
 chmodSync('dist/cli.js', 0o755);
+// The sweep runs in a worker thread so that Ctrl-C can stop it cleanly (src/runSweep.ts).
+await build({ ...common, entryPoints: ['src/sweepWorker.ts'], outfile: 'dist/sweepWorker.js' });
 await build({ ...common, entryPoints: ['src/index.ts'], outfile: 'dist/lib/index.js' });
-execFileSync(process.execPath, ['node_modules/typescript/bin/tsc', '-p', 'tsconfig.build.json'], { stdio: 'inherit' });
+// `--bundle-only` (used by the test setup) skips the type declarations, which only the library's users need.
+if (!bundleOnly) {
+  execFileSync(process.execPath, ['node_modules/typescript/bin/tsc', '-p', 'tsconfig.build.json'], { stdio: 'inherit' });
+}

@@ -1,0 +1,53 @@
+/**
+ * The CLI side of a sweep: start the worker (sweepWorker.ts), relay progress to a callback, turn
+ * the first Ctrl-C into a cooperative stop (results kept, marked as interrupted) and a second one
+ * into an immediate exit, and rethrow the worker's errors as the same kind of error here.
+ */
+import { Worker } from 'node:worker_threads';
+import { BranchtraceError } from './errors.js';
+import type { SweepOptions } from './sweep.js';
+import type { SweepJob, WorkerMessage } from './sweepWorker.js';
+import type { Report } from './types.js';
+
+/** An error the worker raised, with its exit status. */
+export class RelayedError extends BranchtraceError {
+  constructor(message: string, readonly exitCode: number) {
+    super(message);
+  }
+}
+
+export type Progress = Extract<WorkerMessage, { kind: 'progress' }>;
+
+export function runSweep(
+  workerUrl: URL, path: string, opts: SweepOptions, onProgress: (p: Progress) => void,
+): Promise<Report> {
+  const stop = new SharedArrayBuffer(4);
+  const flag = new Int32Array(stop);
+  const job: SweepJob = { path, opts, stop };
+  const worker = new Worker(workerUrl, { workerData: job });
+  const onSigint = () => {
+    if (Atomics.load(flag, 0) !== 0) process.exit(130);
+    Atomics.store(flag, 0, 1);
+  };
+  process.on('SIGINT', onSigint);
+  return new Promise<Report>((resolve, reject) => {
+    let settled = false;
+    worker.on('message', (m: WorkerMessage) => {
+      if (m.kind === 'progress') return onProgress(m);
+      settled = true;
+      if (m.kind === 'done') resolve(m.report);
+      else if (m.kind === 'error') reject(new RelayedError(m.message, m.exitCode));
+      else reject(Object.assign(new Error(m.message), { stack: m.stack }));
+    });
+    worker.on('error', (err) => {
+      settled = true;
+      reject(err);
+    });
+    worker.on('exit', (code) => {
+      if (!settled) reject(new Error(`the sweep worker stopped with exit code ${code} before sending a result`));
+    });
+  }).finally(() => {
+    process.off('SIGINT', onSigint);
+    void worker.terminate();
+  });
+}

@@ -1,0 +1,109 @@
+/**
+ * The parameter sweep, one straight pipeline:
+ *
+ *   Model ─prepare→ CompiledSystem, parameters, guess      (src/setup.ts, src/compile/)
+ *         ─findEquilibria at from, nominal, to→ starts      (src/equilibria/)
+ *         ─traceBranches→ Trace: branches, special points  (src/trace/, src/detect/)
+ *         ─buildReport→ Report (margin included)           (src/report/)
+ *
+ * Rendering and writing files are the caller's business (src/cli.ts, or a library user); this
+ * function touches neither the file system nor the terminal. It returns the intermediate results too.
+ */
+import type { CompiledSystem } from './compile/compileModel.js';
+import { EQUILIBRIA, MARGIN, NEWTON } from './defaults.js';
+import { findEquilibria } from './equilibria/findEquilibria.js';
+import { message, NumericalError, UsageError } from './errors.js';
+import { buildReport } from './report/buildReport.js';
+import { parameterIndex, prepare } from './setup.js';
+import { newton } from './solve/newton.js';
+import { traceBranches, type StartEquilibrium } from './trace/traceBranches.js';
+import { traceSettings } from './trace/traceSettings.js';
+import type { Model, NewtonResult, Report, Trace, TraceHooks, TraceSettings } from './types.js';
+import { VERSION } from './version.js';
+
+export interface SweepOptions {
+  /** The parameter to vary, and its range (from ≠ to; either order). */
+  vary: string;
+  from: number;
+  to: number;
+  /** Other parameters replacing the model's values (`--set`). */
+  set?: Readonly<Record<string, number>>;
+  /** Start guesses replacing the model's (`--start`). */
+  start?: Readonly<Record<string, number>>;
+  /** First and largest step along the branch (scaled arclength, in parameter units). */
+  step?: number;
+  maxStep?: number;
+  /** Point budget per branch. */
+  maxPoints?: number;
+  warnMargin?: number;
+  failMargin?: number;
+}
+
+export interface SweepResult {
+  system: CompiledSystem;
+  starts: StartEquilibrium[];
+  trace: Trace;
+  report: Report;
+}
+
+function newtonAt(system: CompiledSystem, p: Float64Array, x0: Float64Array): NewtonResult {
+  return newton(
+    (x, out) => system.rhs(x, p, out),
+    (x, out) => system.jacobian(x, p, out),
+    x0,
+    NEWTON,
+  );
+}
+
+function settingsFor(k: number, opts: SweepOptions): TraceSettings {
+  const overrides: Partial<TraceSettings> = {};
+  if (opts.step !== undefined) overrides.ds = opts.step;
+  if (opts.maxStep !== undefined) overrides.dsMax = opts.maxStep;
+  if (opts.maxPoints !== undefined) overrides.maxPoints = opts.maxPoints;
+  const settings = traceSettings(k, opts.from, opts.to, overrides);
+  if (settings.ds > settings.dsMax) settings.ds = settings.dsMax;
+  return settings;
+}
+
+export function sweep(model: Model, opts: SweepOptions, hooks: TraceHooks = {}): SweepResult {
+  const k = parameterIndex(model, opts.vary);
+  if (!(opts.from !== opts.to)) throw new UsageError(message.emptyRange(opts.from, opts.to));
+  const { system, params, guess } = prepare(model, opts);
+  const nominal = params[k]!;
+
+  // 1. Every equilibrium the search finds at the start of the range (the guess is tried first),
+  //    then at the nominal value and at the end of the range, for branches that do not reach the
+  //    start of the range (an isola, or the far side of an S-curve). Starts on a branch already
+  //    traced are skipped by the trace.
+  const at = (lambda: number) => {
+    const q = params.slice();
+    q[k] = lambda;
+    return q;
+  };
+  const fromStarts = findEquilibria(system, at(opts.from), { guess }).equilibria.map((e) => e.state);
+  if (fromStarts.length === 0) {
+    const tried = newtonAt(system, at(opts.from), guess);
+    throw new NumericalError(message.noEquilibriumAtStart(opts.vary, opts.from, tried.residual, tried.iterations));
+  }
+  const lo = Math.min(opts.from, opts.to);
+  const hi = Math.max(opts.from, opts.to);
+  const further = [...(nominal > lo && nominal < hi ? [nominal] : []), opts.to].flatMap((lambda) =>
+    findEquilibria(system, at(lambda), { guess, starts: EQUILIBRIA.extraStarts }).equilibria
+      .map((e) => ({ state: e.state, parameter: lambda })));
+  const starts = [...fromStarts, ...further];
+
+  // 2. Follow every branch through them.
+  const trace = traceBranches(system, params, settingsFor(k, opts), starts, hooks);
+
+  // 3. The operating state: where Newton from the guess lands at the nominal value.
+  const operating = newtonAt(system, params, guess);
+  const report = buildReport(trace, system.info, {
+    parameter: opts.vary,
+    version: VERSION,
+    warnMargin: opts.warnMargin ?? MARGIN.warn,
+    failMargin: opts.failMargin ?? MARGIN.fail,
+    nominal,
+    ...(operating.status === 'converged' && { operatingState: operating.x }),
+  });
+  return { system, starts, trace, report };
+}
