@@ -83,7 +83,7 @@ export function traceBranches(
       : switchStart(ext, work, job.z, job.d, TRACE.switchOffset * settings.ds, settings);
     if (typeof start === 'string') {
       warnings.push(job.kind === 'start' ? start
-        : message.traceSwitchFailed(job.event.point.branch, name, job.event.point.parameter, start));
+        : message.traceSwitchFailed(job.event.point.branch + 1, name, job.event.point.parameter, start));
       continue;
     }
     // A switched start is not compared with its parent branch: the two cross there, maybe at a
@@ -100,7 +100,7 @@ export function traceBranches(
     const atEnd = job.kind === 'start' && job.parameter === from;
     const walked = traceBothWays(ctx, start, settings.maxPoints, atEnd ? 1 : 0.5);
     traced.push(walked.points);
-    reportStops(ext, walked, id, name, warnings);
+    reportStops(ext, walked, id + 1, name, warnings); // messages count branches from 1
     branches.push({
       id,
       origin: job.kind === 'start' ? { kind: 'start' } : { kind: 'switch', branch: job.event.point.branch, event: -1 },
@@ -120,7 +120,7 @@ export function traceBranches(
     const { events, failures } = detectEvents(ext, work, walked.points, { ...detectOptions, skip });
     for (const f of failures) {
       const [a, b] = f.between.map((i) => walked.points[i]!.z[ext.n]!) as [number, number];
-      warnings.push(message.traceLocateFailed(eventWords(f.type), id, name, a, b, f.status));
+      warnings.push(message.traceLocateFailed(eventWords(f.type), id + 1, name, a, b, f.status));
     }
     for (const found of events) {
       const z = found.located.z;
@@ -130,7 +130,7 @@ export function traceBranches(
       pending.push(event);
       if (what.direction !== undefined) queue.push({ kind: 'switch', event, z: z.slice(), d: what.direction });
       else if (found.type === 'branch-point') {
-        warnings.push(message.traceSwitchFailed(id, name, event.point.parameter, 'the two branch directions could not be computed'));
+        warnings.push(message.traceSwitchFailed(id + 1, name, event.point.parameter, 'the two branch directions could not be computed'));
       }
     }
   }

@@ -149,7 +149,7 @@ describe('traceBranches limits', () => {
     expect(branch.points).toHaveLength(10);
     const last = branch.points[branch.points.length - 1]!;
     expect(trace.warnings).toEqual([
-      message.traceBranchStopped(0, 'the point budget per branch is used up; raise it to follow the branch further', 'lambda', last.parameter),
+      message.traceBranchStopped(1, 'the point budget per branch is used up; raise it to follow the branch further', 'lambda', last.parameter),
     ]);
   });
 });
@@ -179,7 +179,7 @@ describe('traceBranches at the edge of the model\'s domain', () => {
     expect(last.parameter).toBeLessThan(1e-3); // close to the edge λ = 0 (analytic)
     expect(last.parameter).toBeGreaterThan(0);
     expect(trace.warnings).toEqual([
-      message.traceBranchStopped(0, 'the model gave a value that is not finite', 'lambda', last.parameter),
+      message.traceBranchStopped(1, 'the model gave a value that is not finite', 'lambda', last.parameter),
     ]);
     expectAllConverged(trace);
   });
