@@ -21,7 +21,6 @@ import { equilibriaJson, equilibriaText } from './report/renderEquilibria.js';
 import { renderJson } from './report/renderJson.js';
 import { writeOutputs } from './report/writeFiles.js';
 import { runSweep, type Progress } from './runSweep.js';
-import { prepare } from './setup.js';
 import type { Report } from './types.js';
 import { VERSION } from './version.js';
 
@@ -121,19 +120,21 @@ async function sweepCommand(file: string, f: SweepFlags): Promise<number> {
     ...(f.failMargin !== undefined && { failMargin: fraction('--fail-margin', f.failMargin) }),
   };
   const plot = parsePlot(f.plot);
-  // Check names and values here, before the worker starts, so a typo fails fast.
-  const model = readModelFile(file);
-  prepare(model, opts);
   if (opts.from === opts.to) throw new UsageError(message.emptyRange(opts.from, opts.to));
-  if (!model.parameters.some((q) => q.name === opts.vary)) {
-    throw new UsageError(message.unknownParameter(opts.vary, model.parameters.map((q) => q.name)));
-  }
-  for (const name of Array.isArray(plot) ? plot : []) {
-    if (!model.states.some((s) => s.name === name)) throw new UsageError(message.unknownState(name, model.states.map((s) => s.name)));
-  }
+  // The worker starts at once (it loads and checks the model itself; its errors come back as the
+  // same one-line errors); meanwhile this thread checks what only the diagram needs.
   const progress = progressLine(opts.vary);
-  const report = await runSweep(new URL('./sweepWorker.js', import.meta.url), file, opts, progress)
-    .finally(() => progress.clear());
+  const running = runSweep(new URL('./sweepWorker.js', import.meta.url), file, opts, progress);
+  try {
+    const model = readModelFile(file);
+    for (const name of Array.isArray(plot) ? plot : []) {
+      if (!model.states.some((s) => s.name === name)) throw new UsageError(message.unknownState(name, model.states.map((s) => s.name)));
+    }
+  } catch (err) {
+    running.cancel();
+    throw err;
+  }
+  const report = await running.report.finally(() => progress.clear());
   const dir = f.out ?? join('out', `${stem(file)}-${opts.vary}`);
   const files = await sweepFiles(report, { ...(plot !== undefined && { plot }), diagram: f.diagram !== false });
   const written = await writeOutputs(dir, files);
