@@ -177,3 +177,15 @@ describe('bad input: one line, non-zero status, nothing written', () => {
     expect(existsSync(join(cwd, 'out'))).toBe(false);
   });
 });
+
+describe('branchtrace equilibria --box', () => {
+  it('reports only the equilibria inside the given ranges', () => {
+    // Gardner et al. (2000) switch at alpha1 = alpha2 = 10: states (5 ± 2√6, 5 ∓ 2√6) and (2, 2)
+    // (analytic: u + v = 10 and uv = 1 on the asymmetric pair). Only the high-u one has u in [5, 20].
+    const r = runCli(['equilibria', TOGGLE, '--box', 'u=5:20', '--json']);
+    expect(r.status).toBe(0);
+    const out = JSON.parse(r.stdout) as { equilibria: { state: Record<string, number> }[] };
+    expect(out.equilibria).toHaveLength(1);
+    expect(out.equilibria[0]!.state['u']).toBeCloseTo(5 + 2 * Math.sqrt(6), 9);
+  });
+});

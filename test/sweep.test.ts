@@ -1,0 +1,53 @@
+/**
+ * The library pipeline sweep(): model → equilibria at the start, nominal value and end → branches
+ * → report with the design margin. Reference values are computed here from closed forms.
+ */
+import { describe, expect, it } from 'vitest';
+import { message, NumericalError, UsageError } from '../src/errors.js';
+import { loadModel, readModelFile } from '../src/model/loadModel.js';
+import { sweep } from '../src/sweep.js';
+import { bisect } from './trace/bisect.js';
+
+/**
+ * Toggle switch of Gardner, Cantor & Collins (2000), u' = α1/(1 + v²) − u, v' = 10/(1 + u²) − v
+ * (models/genetic-toggle-switch.yaml). Equilibria parametrised by u: v = 10/(1 + u²),
+ * α1 = u(1 + v²) (analytic). With J = [[−1, −2α1 v/(1+v²)²], [−20u/(1+u²)², −1]], folds are the
+ * zeros of det J = 1 − (2α1 v/(1+v²)²)(20u/(1+u²)²) = 1 − (2uv/(1+v²))(20u/(1+u²)²).
+ */
+function toggleFold(uLo: number, uHi: number): number {
+  const v = (u: number) => 10 / (1 + u * u);
+  const det = (u: number) => 1 - ((2 * u * v(u)) / (1 + v(u) ** 2)) * ((20 * u) / (1 + u * u) ** 2);
+  const u = bisect(det, uLo, uHi);
+  return u * (1 + v(u) ** 2);
+}
+
+describe('sweep()', () => {
+  it('finds the far side of the toggle switch S-curve from the equilibria at the nominal value and the range end', () => {
+    // From α1 = 1 only the low-u state exists, and its branch stays low up to α1 = 20; the upper
+    // branch and its fold (analytic, toggleFold) are reached only from the other starts.
+    const model = readModelFile('models/genetic-toggle-switch.yaml');
+    const { report } = sweep(model, { vary: 'alpha1', from: 1, to: 20 });
+    const folds = report.events.filter((e) => e.type === 'fold');
+    expect(folds).toHaveLength(1);
+    // The lower fold lies where the saddle and the high-u branch meet: u between 1 and 10 (bracket by hand).
+    const expected = toggleFold(1.5, 9);
+    expect(Math.abs(folds[0]!.parameter - expected)).toBeLessThan(1e-10 * expected);
+    // Nominal α1 = 10 with the start guess u = 8 lies on the high-u branch; the fold below is the margin.
+    expect(report.margin?.branch).toBe(folds[0]!.branch);
+    expect(report.margin?.below?.parameter).toBe(folds[0]!.parameter);
+    expect(report.margin?.below?.relative).toBeCloseTo((10 - expected) / 10, 12);
+    expect(report.branches.map((b) => b.id)).toEqual(report.branches.map((_, i) => i + 1));
+  });
+
+  it('rejects from = to and an unknown parameter with the messages of src/errors.ts', () => {
+    const model = readModelFile('models/brusselator.yaml');
+    expect(() => sweep(model, { vary: 'b', from: 2, to: 2 })).toThrow(new UsageError(message.emptyRange(2, 2)));
+    expect(() => sweep(model, { vary: 'bb', from: 0, to: 1 })).toThrow(UsageError);
+  });
+
+  it('reports a numerical error when there is no equilibrium at the start of the range', () => {
+    // x' = p − x² has no real equilibrium for p < 0 (analytic).
+    const model = loadModel('states:\n  x: 1\nparameters:\n  p: 1\nequations:\n  x: p - x^2\n', 'none.yaml');
+    expect(() => sweep(model, { vary: 'p', from: -1, to: 1 })).toThrow(NumericalError);
+  });
+});
