@@ -51,6 +51,10 @@ export const TRACE = {
   /** Locating special points: absolute arclength tolerance relative to max(|λ|, 1e-3·|to − from|). */
   locateRelTol: 1e-11,
   locateMaxIter: 60,
+  /** Branch points: the bracket is narrowed on the branch to this fraction of its arclength, then
+   *  Newton on the augmented branch-point system (at most branchPointMaxIter steps) finishes. */
+  branchPointStartTol: 1e-6,
+  branchPointMaxIter: 12,
   /** Offset of a switched branch's first point from the branch point, as a fraction of ds. */
   switchOffset: 0.3,
   /** Eigenvalues with real part below this (relative to max(1, |largest eigenvalue|)) count as stable. */

@@ -74,7 +74,7 @@ function combine(t: Float64Array, phi: Float64Array, alpha: number, beta: number
  * Unit null vector of [F_z(z); rowᵀ] (in null(F_z) ∩ row⊥) by inverse iteration, and optionally
  * its left null vector, whose first n entries are then the left null vector ψ of F_z.
  */
-function borderedNullVector(
+export function borderedNullVector(
   ext: ExtendedSystem, work: Workspace, z: Float64Array, row: Float64Array, left: Float64Array | null,
 ): Float64Array | null {
   const { n, m } = ext;
@@ -85,11 +85,17 @@ function borderedNullVector(
   for (let j = 0; j < m * m; j++) size = Math.max(size, Math.abs(mat[j]!));
   if (!(size > 0)) return null;
   luFactor(mat, m, lu);
+  // (Nearly) exactly singular: shift slightly so inverse iteration runs without overflow. At an
+  // exactly located branch point of a structured matrix (small integer entries) the shifted matrix
+  // can again have an exactly zero pivot, so the shift grows until it has none; inverse iteration
+  // converges by the factor shift / (next singular value) per sweep, still negligible.
   if (lu.singular || smallestPivot(lu.lu, m) < 1e-14 * size) {
-    // (Nearly) exactly singular: shift slightly so inverse iteration runs without overflow.
-    for (let j = 0; j < m; j++) mat[j * m + j] = mat[j * m + j]! + 1e-13 * size;
-    luFactor(mat, m, lu);
-    if (lu.singular) return null;
+    for (let shift = 1e-13; ; shift *= 100) {
+      for (let j = 0; j < m; j++) mat[j * m + j] = mat[j * m + j]! + shift * size;
+      luFactor(mat, m, lu);
+      if (!lu.singular) break;
+      if (shift > 1e-9) return null;
+    }
   }
   const right = new Float64Array(m);
   for (let j = 0; j < m; j++) right[j] = 1 + ((0.618 * (j + 1)) % 1);

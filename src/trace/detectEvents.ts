@@ -1,7 +1,7 @@
 /**
  * Scans a finished branch for sign changes of the test functions between consecutive points and
- * locates each one (locateOnBranch.ts). Test functions (Kuznetsov, Elements of Applied Bifurcation
- * Theory, 3rd ed., §10.2; Allgower & Georg 1990, §8.1):
+ * locates each one (locateOnBranch.ts; branch points by locateBranchPoint.ts). Test functions
+ * (Kuznetsov, Elements of Applied Bifurcation Theory, 3rd ed., §10.2; Allgower & Georg 1990, §8.1):
  *   branch point  τ_bp = det [F_z; tᵀ]   (checked first: at a simple branch point t_λ need not vanish,
  *                                         and where a branch turns at one, t_λ changes sign too);
  *   fold          τ_f  = t_λ, the parameter component of the unit tangent (foldBetween: an exact
@@ -16,6 +16,7 @@ import type { Eigenvalue, EventType } from '../types.js';
 import type { ExtendedSystem } from './extendedSystem.js';
 import { criticalPair, hopfBetween } from '../detect/hopfTest.js';
 import { pairRealPart } from './pairRealPart.js';
+import { locateBranchPoint } from './locateBranchPoint.js';
 import { locateOnBranch, type BranchTest, type Located } from './locateOnBranch.js';
 import type { RawPoint } from './rawPoint.js';
 import type { Workspace } from './workspace.js';
@@ -51,7 +52,8 @@ export function detectEvents(
     const a = points[i]!;
     const b = points[i + 1]!;
     if (opts.skip?.(type, a, b) === true) return;
-    const located = locateOnBranch(ext, work, a, b, test, gA, gB, { ...opts, tol: opts.tol(a.z[n]!) });
+    const locate = type === 'branch-point' ? locateBranchPoint : locateOnBranch;
+    const located = locate(ext, work, a, b, test, gA, gB, { ...opts, tol: opts.tol(a.z[n]!) });
     if (located.status !== 'converged' && located.status !== 'max-iter') {
       failures.push({ type, between: [i, i + 1], status: located.status });
       return;

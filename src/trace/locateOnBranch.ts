@@ -8,7 +8,9 @@
  * tangent is recomputed there, and g is evaluated; the scalar root is found by Brent's method
  * (locateRoot.ts). For a fold, g = t_λ; its zero is quadratic in λ, so the parameter is found to
  * about the square of the arclength tolerance (the bracketing approach of Allgower & Georg 1990,
- * §9.1 applied to the test functions of Kuznetsov, 3rd ed., §10.2).
+ * §9.1 applied to the test functions of Kuznetsov, 3rd ed., §10.2). Branch points use this only
+ * to narrow the bracket, then finish with Newton on an augmented system (locateBranchPoint.ts):
+ * the corrected points themselves become ill-determined next to a branch point.
  */
 import { locateRoot, type RootStatus } from '../detect/locateRoot.js';
 import { correctPoint } from './correctPoint.js';
@@ -27,6 +29,8 @@ export interface Located {
   tangent: TangentOutcome;
   /** ‖F‖∞ at z. */
   residual: number;
+  /** Arclength σ of the root estimate along a's tangent (from a). */
+  s: number;
   /** Test-function evaluations of the root finder. */
   iterations: number;
   g: number;
@@ -51,7 +55,6 @@ export function locateOnBranch(
   };
   let residual = NaN;
   let tangent: TangentOutcome = { ok: false, singular: false, detSign: 0, detLog: -Infinity };
-  const chord = Math.sqrt(dot(zb, zb));
   // Exactly at a branch point the corrector's matrix is singular to rounding and its step blows up;
   // the test function is then taken a little to the side (it is continuous and zero at the point).
   const nudge = 10 * opts.tol;
@@ -64,10 +67,7 @@ export function locateOnBranch(
   const evaluateAt = (sigma: number): number => {
     // Prediction on the cubic Hermite curve through a and b, moved along t_a onto the hyperplane;
     // if that does not correct, the plain Euler prediction z_a + σ t_a.
-    hermite(a, b, chord, sigmaB === 0 ? 0 : sigma / sigmaB, z);
-    let off = sigma;
-    for (let j = 0; j < m; j++) off -= a.t[j]! * (z[j]! - a.z[j]!);
-    for (let j = 0; j < m; j++) z[j] = z[j]! + off * a.t[j]!;
+    predictOnBranch(a, b, sigma, z);
     let c = correctPoint(ext, z, zHat, a.t, correction, work);
     if (c.status !== 'converged') {
       for (let j = 0; j < m; j++) z[j] = a.z[j]! + sigma * a.t[j]!;
@@ -81,7 +81,27 @@ export function locateOnBranch(
   const root = locateRoot(evaluate, 0, sigmaB, gA, gB, { tol: opts.tol, maxIter: opts.rootMaxIter });
   const g = evaluate(root.s);
   const status = Number.isNaN(g) ? 'not-corrected' : root.status;
-  return { status, z, t, tangent, residual, iterations: root.iterations, g };
+  return { status, z, t, tangent, residual, s: root.s, iterations: root.iterations, g };
+}
+
+/**
+ * The prediction of the point at arclength σ along a's tangent: the cubic Hermite curve through a
+ * and b, moved along t_a onto the hyperplane t_aᵀ(z − z_a) = σ. Writes into `out`.
+ */
+export function predictOnBranch(a: RawPoint, b: RawPoint, sigma: number, out: Float64Array): Float64Array {
+  const m = out.length;
+  let sigmaB = 0;
+  let chord = 0;
+  for (let j = 0; j < m; j++) {
+    const d = b.z[j]! - a.z[j]!;
+    sigmaB += a.t[j]! * d;
+    chord += d * d;
+  }
+  hermite(a, b, Math.sqrt(chord), sigmaB === 0 ? 0 : sigma / sigmaB, out);
+  let off = sigma;
+  for (let j = 0; j < m; j++) off -= a.t[j]! * (out[j]! - a.z[j]!);
+  for (let j = 0; j < m; j++) out[j] = out[j]! + off * a.t[j]!;
+  return out;
 }
 
 /** Cubic Hermite interpolation between a and b (end slopes h·t) at u ∈ [0, 1]. */
