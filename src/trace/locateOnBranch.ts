@@ -15,6 +15,7 @@
 import { locateRoot, type RootStatus } from '../detect/locateRoot.js';
 import { correctPoint } from './correctPoint.js';
 import type { ExtendedSystem } from './extendedSystem.js';
+import { hermite } from './hermite.js';
 import type { RawPoint } from './rawPoint.js';
 import { tangentAt, type TangentOutcome } from './tangentAt.js';
 import { dot, type Workspace } from './workspace.js';
@@ -104,14 +105,3 @@ export function predictOnBranch(a: RawPoint, b: RawPoint, sigma: number, out: Fl
   return out;
 }
 
-/** Cubic Hermite interpolation between a and b (end slopes h·t) at u ∈ [0, 1]. */
-function hermite(a: RawPoint, b: RawPoint, h: number, u: number, out: Float64Array): void {
-  const v = Math.min(1, Math.max(0, u));
-  const v2 = v * v;
-  const v3 = v2 * v;
-  const h00 = 2 * v3 - 3 * v2 + 1;
-  const h10 = v3 - 2 * v2 + v;
-  const h01 = -2 * v3 + 3 * v2;
-  const h11 = v3 - v2;
-  for (let j = 0; j < out.length; j++) out[j] = h00 * a.z[j]! + h10 * h * a.t[j]! + h01 * b.z[j]! + h11 * h * b.t[j]!;
-}

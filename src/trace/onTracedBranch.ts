@@ -6,6 +6,7 @@
  * keeps a crossing branch at a branch point from counting as the same branch.
  */
 import { TRACE } from '../defaults.js';
+import { hermite } from './hermite.js';
 import type { RawPoint } from './rawPoint.js';
 import { dot } from './workspace.js';
 
@@ -42,18 +43,6 @@ function chord(u: Float64Array, v: Float64Array): number {
   return Math.sqrt(s);
 }
 
-/** Cubic Hermite interpolation between a and b with end slopes h·t. */
-function hermite(a: RawPoint, b: RawPoint, h: number, u: number, out: Float64Array): void {
-  const u2 = u * u;
-  const u3 = u2 * u;
-  const h00 = 2 * u3 - 3 * u2 + 1;
-  const h10 = u3 - 2 * u2 + u;
-  const h01 = -2 * u3 + 3 * u2;
-  const h11 = u3 - u2;
-  for (let j = 0; j < out.length; j++) {
-    out[j] = h00 * a.z[j]! + h10 * h * a.t[j]! + h01 * b.z[j]! + h11 * h * b.t[j]!;
-  }
-}
 
 /** Distance from z to the segment [u, v]. */
 function segmentDistance(z: Float64Array, u: Float64Array, v: Float64Array): number {
