@@ -14,5 +14,7 @@ export interface EquilibriaAtOptions extends Overrides {
 export function equilibriaAt(model: Model, opts: EquilibriaAtOptions = {}): Prepared & { search: EquilibriumSearch } {
   const prepared = prepare(model, opts);
   const box = searchBox(model, prepared.guess, opts.box ?? []);
-  return { ...prepared, search: findEquilibria(prepared.system, prepared.params, { box, guess: prepared.guess }) };
+  // Without --box the box is only where start points go; every equilibrium found is reported.
+  const keepOutsideBox = (opts.box ?? []).length === 0;
+  return { ...prepared, search: findEquilibria(prepared.system, prepared.params, { box, guess: prepared.guess, keepOutsideBox }) };
 }

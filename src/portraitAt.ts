@@ -50,7 +50,7 @@ export function portraitAt(model: Model, request: PortraitRequest): PortraitResu
   const { system, params, guess } = prepare(model, { set, ...(request.start && { start: request.start }) });
   const ix = request.x !== undefined ? stateIndex(model, request.x) : 0;
   const iy = request.y !== undefined ? stateIndex(model, request.y) : 1;
-  const { equilibria } = findEquilibria(system, params, { guess });
+  const { equilibria } = findEquilibria(system, params, { guess, keepOutsideBox: true });
   const window = request.window ?? defaultWindow([guess, ...equilibria.map((e) => e.state)], ix, iy);
   const held = (equilibria.find((e) => e.stable) ?? equilibria[0])?.state ?? guess;
   const data = buildPortrait(system, params, { ix, iy, window, held: held.slice(), equilibria });

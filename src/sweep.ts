@@ -80,7 +80,7 @@ export function sweep(model: Model, opts: SweepOptions, hooks: TraceHooks = {}):
     q[k] = lambda;
     return q;
   };
-  const fromStarts = findEquilibria(system, at(opts.from), { guess }).equilibria.map((e) => e.state);
+  const fromStarts = findEquilibria(system, at(opts.from), { guess, keepOutsideBox: true }).equilibria.map((e) => e.state);
   if (fromStarts.length === 0) {
     const tried = newtonAt(system, at(opts.from), guess);
     throw new NumericalError(message.noEquilibriumAtStart(opts.vary, opts.from, tried.residual, tried.iterations));
@@ -88,7 +88,7 @@ export function sweep(model: Model, opts: SweepOptions, hooks: TraceHooks = {}):
   const lo = Math.min(opts.from, opts.to);
   const hi = Math.max(opts.from, opts.to);
   const further = [...(nominal > lo && nominal < hi ? [nominal] : []), opts.to].flatMap((lambda) =>
-    findEquilibria(system, at(lambda), { guess, starts: EQUILIBRIA.extraStarts }).equilibria
+    findEquilibria(system, at(lambda), { guess, starts: EQUILIBRIA.extraStarts, keepOutsideBox: true }).equilibria
       .map((e) => ({ state: e.state, parameter: lambda })));
   const starts = [...fromStarts, ...further];
 

@@ -29,6 +29,11 @@ export interface FindEquilibriaOptions {
   /** Selects the start-point stream: the same value always gives the same starts (default 1). */
   seed?: number;
   guess?: Float64Array;
+  /**
+   * Report roots found outside the box too (the box then only places the start points). For a
+   * default box, whose size is a guess: Newton often lands on real equilibria beyond it.
+   */
+  keepOutsideBox?: boolean;
 }
 
 export interface EquilibriumSearchDiagnostics {
@@ -130,7 +135,7 @@ export function findEquilibria(system: System, p: Float64Array, opts: FindEquili
       deflated.push(polished.x);
       if (!insideBox(polished.x, box)) {
         d.outsideBox += 1;
-        continue;
+        if (opts.keepOutsideBox !== true) continue;
       }
       kept.push({ state: polished.x, residual: polished.residual, iterations: r.iterations + polished.iterations });
     }

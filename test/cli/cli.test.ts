@@ -189,3 +189,19 @@ describe('branchtrace equilibria --box', () => {
     expect(out.equilibria[0]!.state['u']).toBeCloseTo(5 + 2 * Math.sqrt(6), 9);
   });
 });
+
+describe('branchtrace equilibria without --box', () => {
+  it('reports equilibria Newton reaches beyond the default box: the three Lorenz states at rho = 28', () => {
+    // Lorenz (1963), J. Atmos. Sci. 20:130: besides the origin, C± = (±√(b(ρ−1)), ±√(b(ρ−1)), ρ − 1);
+    // with b = 8/3, ρ = 28: X = Y = ±√72 ≈ ±8.485, Z = 27, outside the default box |Z| ≤ 10 around the start 0.
+    const r = runCli(['equilibria', 'models/lorenz-convection.yaml', '--set', 'rho=28', '--json']);
+    expect(r.status).toBe(0);
+    const out = JSON.parse(r.stdout) as { equilibria: { state: Record<string, number> }[] };
+    const xs = out.equilibria.map((e) => e.state['X']!).sort((a, b) => a - b);
+    expect(xs).toHaveLength(3);
+    expect(xs[0]).toBeCloseTo(-Math.sqrt(72), 9);
+    expect(xs[1]).toBeCloseTo(0, 12);
+    expect(xs[2]).toBeCloseTo(Math.sqrt(72), 9);
+    for (const e of out.equilibria.filter((q) => q.state['X'] !== 0)) expect(e.state['Z']).toBeCloseTo(27, 9);
+  });
+});
