@@ -330,6 +330,10 @@ export interface Margin {
   nominal: number;
   /** The branch that holds the nominal operating state, or null when none passes the nominal value. */
   branch: number | null;
+  /** Whether the operating state at the nominal value is stable (null without an operating branch). */
+  operatingStable: boolean | null;
+  /** Eigenvalues with positive real part there (null without an operating branch). */
+  operatingUnstableCount: number | null;
   below: MarginSide | null;
   above: MarginSide | null;
   /** Smallest relative distance of the two sides (null if no special point on that branch). */

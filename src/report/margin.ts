@@ -39,7 +39,10 @@ export function computeMargin(trace: Trace, opts: MarginOptions): Margin {
   };
   const crossing = operatingCrossing(trace, opts);
   if (crossing === null) {
-    return { ...base, branch: null, below: null, above: null, nearestRelative: null, status: 'nominal outside range' };
+    return {
+      ...base, branch: null, operatingStable: null, operatingUnstableCount: null, below: null, above: null,
+      nearestRelative: null, status: 'nominal outside range',
+    };
   }
   const { below, above } = nearestSides(crossing, trace.events, opts.nominal);
   const sides = [below, above].filter((s): s is MarginSide => s !== null);
@@ -47,7 +50,14 @@ export function computeMargin(trace: Trace, opts: MarginOptions): Margin {
   const status: Margin['status'] = nearestRelative === null ? 'no special point'
     : nearestRelative < opts.failMargin ? 'fail'
       : nearestRelative < opts.warnMargin ? 'warn' : 'ok';
-  return { ...base, branch: crossing.branch.id, below, above, nearestRelative, status };
+  // Stability at the crossing: the less stable of the two points around it (common practice: a point
+  // between an unstable and a stable one is next to a special point and counts as unstable).
+  const k = Math.floor(crossing.position);
+  const around = [crossing.branch.points[k], crossing.branch.points[Math.min(k + 1, crossing.branch.points.length - 1)]]
+    .filter((q) => q !== undefined);
+  const operatingUnstableCount = Math.max(...around.map((q) => q.unstableCount));
+  const operatingStable = around.every((q) => q.stable);
+  return { ...base, branch: crossing.branch.id, operatingStable, operatingUnstableCount, below, above, nearestRelative, status };
 }
 
 function operatingCrossing(trace: Trace, opts: MarginOptions): Crossing | null {

@@ -4,7 +4,7 @@ import { formatNumber } from './formatNumber.js';
 
 /** Short label for the nominal-value rule of the diagram: "nominal D = 0.1, margin 28.5%". */
 export function marginLabel(m: Margin): string {
-  const head = `nominal ${m.parameter} = ${formatNumber(m.nominal)}`;
+  const head = `nominal ${m.parameter} = ${formatNumber(m.nominal)}${m.operatingStable === false ? ' (unstable state)' : ''}`;
   if (m.nearestRelative === null) return `${head}, ${m.status}`;
   return `${head}, margin ${percent(m.nearestRelative)}${m.status === 'ok' ? '' : ` (${m.status})`}`;
 }
@@ -16,6 +16,11 @@ export function marginSentences(m: Margin, events: readonly ReportEvent[]): stri
     return [head, 'No traced branch passes this value, so no design margin could be measured.'];
   }
   const lines = [`${head} The operating point is on branch ${m.branch}.`];
+  if (m.operatingStable === false) {
+    const k = m.operatingUnstableCount ?? 0;
+    lines.push(`CAUTION: this steady state is unstable at the nominal value (${k} eigenvalue${k === 1 ? '' : 's'} with ` +
+      'positive real part): the system will not stay at it.');
+  }
   lines.push(m.below === null ? 'No special point below it on this branch.' : sideSentence('Below', m.below, m.parameter, events));
   lines.push(m.above === null ? 'No special point above it on this branch.' : sideSentence('Above', m.above, m.parameter, events));
   lines.push(statusSentence(m));

@@ -19,6 +19,9 @@ describe('computeMargin', () => {
     expectClose(m.above!.relative, (FOLD_LAMBDA - 0.1) / 0.1, { abs: 1e-11 }, 'relative');
     expectClose(m.nearestRelative!, 2.849, { abs: 1e-3 }, 'nearest');
     expect(m.status).toBe('ok');
+    // Analytic: on the lower sheet the eigenvalues 1 − 3x² (x ≈ −1.04) and −1 are negative.
+    expect(m.operatingStable).toBe(true);
+    expect(m.operatingUnstableCount).toBe(0);
   });
 
   it('on the middle sheet finds a fold on each side', () => {
@@ -27,6 +30,9 @@ describe('computeMargin', () => {
     const m = computeMargin(sCurveTrace(), { ...base, nominal: 0.1, operatingState: Float64Array.from([-0.1, -0.1]) });
     expect(m.below?.event).toBe(1);
     expect(m.above?.event).toBe(0);
+    // Analytic: on the middle sheet 1 − 3x² > 0 (|x| < 1/√3): one unstable eigenvalue.
+    expect(m.operatingStable).toBe(false);
+    expect(m.operatingUnstableCount).toBe(1);
     expectClose(m.below!.distance, FOLD_LAMBDA + 0.1, { abs: 1e-12 }, 'below');
     expectClose(m.below!.relative, 4.849, { abs: 1e-3 }, 'below relative');
     expectClose(m.nearestRelative!, (FOLD_LAMBDA - 0.1) / 0.1, { abs: 1e-11 }, 'nearest');
