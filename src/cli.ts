@@ -70,7 +70,7 @@ function progressLine(parameter: string): ((p: Progress) => void) & { clear(): v
   const show = (p: Progress) => {
     if (!tty) return;
     shown = true;
-    process.stderr.write(`\r\x1b[2Ksweeping: branch ${p.branch}, ${p.points} points, ${parameter} = ` +
+    process.stderr.write(`\r\x1b[2Ksweeping: branch ${p.branch}, ${p.points} point${p.points === 1 ? '' : 's'}, ${parameter} = ` +
       `${formatNumber(p.parameter, 6)}, ${p.branchesDone} branch${p.branchesDone === 1 ? '' : 'es'} done`);
   };
   return Object.assign(show, { clear: () => { if (shown) process.stderr.write('\r\x1b[2K'); } });
