@@ -70,6 +70,11 @@ export function didYouMean(name: string, candidates: readonly string[]): string 
   return best !== undefined && bestD <= limit ? ` (did you mean "${best}"?)` : '';
 }
 
+/** `1 iteration`, `2 iterations`: a count with its noun in the singular or the plural. */
+export function countOf(n: number, singular: string, plural = `${singular}s`): string {
+  return `${n} ${n === 1 ? singular : plural}`;
+}
+
 // ─── Messages ───────────────────────────────────────────────────────────────
 // Grouped by stage. Each returns one sentence that names the offending value and where it is.
 
@@ -89,6 +94,8 @@ export const message = {
   badWindow: (text: string) =>
     `--window expects X0:X1,Y0:Y1 with finite numbers and X0 < X1, Y0 < Y1, got "${text}"`,
   emptyRange: (from: number, to: number) => `--from and --to must differ (both are ${from}${from === to ? '' : `, ${to}`})`,
+  noEquilibriumFound: () =>
+    'no equilibrium found in the search box; widen it with --box NAME=LO:HI or give --start NAME=VALUE',
   cannotRead: (file: string, reason: string) => `${file}: cannot read the file (${reason})`,
 
   // compile (src/compile): `at` is file:line:column, `values` lists the states then the parameters
@@ -157,7 +164,7 @@ export const message = {
 
   // numerics
   noEquilibriumAtStart: (param: string, value: number, residual: number, iterations: number) =>
-    `no equilibrium at ${param} = ${value}: Newton stopped after ${iterations} iterations with residual ` +
+    `no equilibrium at ${param} = ${value}: Newton stopped after ${countOf(iterations, 'iteration')} with residual ` +
     `${residual.toExponential(2)}; give other start values with --start NAME=VALUE`,
   nonFinite: (what: string, state: string, params: string) =>
     `${what} is not finite at ${state} with ${params}`,
@@ -174,20 +181,20 @@ export const message = {
 
   // continuation (src/trace): warnings collected in trace.warnings
   traceStartFailed: (param: string, value: number, status: string, residual: number, iterations: number) =>
-    `a start point at ${param} = ${value} was dropped: Newton ${status} after ${iterations} iterations ` +
+    `a start point at ${param} = ${value} was dropped: Newton ${status} after ${countOf(iterations, 'iteration')} ` +
     `(residual ${residual.toExponential(2)})`,
   traceNoTangent: (param: string, value: number) =>
     `a start point at ${param} = ${value} was dropped: the branch direction there could not be computed`,
   traceBranchStopped: (branch: number, reason: string, param: string, value: number) =>
     `branch ${branch} stopped at ${param} = ${value.toPrecision(8)}: ${reason}`,
   traceLandFailed: (param: string, bound: number, status: string, residual: number, iterations: number) =>
-    `could not place the last point exactly on ${param} = ${bound}: Newton ${status} after ${iterations} ` +
-    `iterations (residual ${residual.toExponential(2)})`,
+    `could not place the last point exactly on ${param} = ${bound}: Newton ${status} after ` +
+    `${countOf(iterations, 'iteration')} (residual ${residual.toExponential(2)})`,
   traceLocateFailed: (what: string, branch: number, param: string, a: number, b: number, status: string) =>
     `a ${what} on branch ${branch} between ${param} = ${a.toPrecision(8)} and ${b.toPrecision(8)} ` +
     `could not be located (${status}); it is not reported`,
   traceSwitchFailed: (branch: number, param: string, value: number, reason: string) =>
     `no new branch started at the branch point of branch ${branch} at ${param} = ${value.toPrecision(8)}: ${reason}`,
   traceBranchLimit: (limit: number) =>
-    `stopped starting new branches after ${limit} branches (the branch limit); raise it to see more`,
+    `stopped starting new branches after ${countOf(limit, 'branch', 'branches')} (the branch limit); raise it to see more`,
 } as const;

@@ -9,6 +9,7 @@
  * steps that balance truncation against rounding, common practice). Scratch space is allocated
  * once, so calls allocate nothing.
  */
+import { normInf } from '../linalg/norm.js';
 import type { VectorFn } from './kernels.js';
 
 export interface FiniteDifferenceForms {
@@ -18,12 +19,6 @@ export interface FiniteDifferenceForms {
 
 const H_SECOND = Math.cbrt(Number.EPSILON);
 const H_THIRD = Math.sqrt(Math.sqrt(Number.EPSILON));
-
-function maxAbs(a: Float64Array): number {
-  let m = 0;
-  for (let i = 0; i < a.length; i++) m = Math.max(m, Math.abs(a[i]!));
-  return m;
-}
 
 export function finiteDifferenceForms(jacobian: VectorFn, n: number): FiniteDifferenceForms {
   const shifted = new Float64Array(n);
@@ -44,8 +39,8 @@ export function finiteDifferenceForms(jacobian: VectorFn, n: number): FiniteDiff
   }
 
   function step(h: number, x: Float64Array, dir: Float64Array): number {
-    const size = maxAbs(dir);
-    return size === 0 ? 0 : (h * Math.max(1, maxAbs(x))) / size;
+    const size = normInf(dir);
+    return size === 0 ? 0 : (h * Math.max(1, normInf(x))) / size;
   }
 
   return {

@@ -10,16 +10,18 @@
  * is continuous in the matrix (its sign can only flip where some factor, hence the minimum, is 0)
  * and it has the same zeros and sign changes as ψ, without overflow for any n.
  *
- * How a caller uses these between consecutive branch points P0, P1 (eigenvalues e0, e1):
+ * How src/trace/detectEvents.ts uses these between consecutive branch points P0, P1 (eigenvalues
+ * e0, e1):
  *  1. detect: `hopfBetween(e0, e1, tol)` — hopfTest changes sign AND the number of complex
  *     eigenvalues with positive real part (`complexUnstableCount`) changes. A neutral saddle flips
  *     the sign without changing that count; two real unstable eigenvalues that merge into a complex
  *     pair change the count without flipping the sign. Neither is reported.
- *  2. locate: `locateRoot(s ↦ hopfTest(eigenvalues at the corrected point at arclength s), s0, s1,
- *     hopfTest(e0), hopfTest(e1), …)`. (Equivalently, the real part of the critical pair, chosen by
- *     `criticalPair`, along s.)
- *  3. confirm: at the located point `isNeutralSaddle(e, tol)` must be false, then compute
- *     `lyapunovCoefficient` there.
+ *  2. locate: `criticalPair` at P0 (else P1) gives the frequency ω of the crossing pair; the root
+ *     is located along the branch on the real part of the complex eigenvalue nearest ω
+ *     (src/trace/pairRealPart.ts), which is smooth there, not on hopfTest. The bracket is dropped
+ *     unless that real part changes sign between P0 and P1.
+ * src/trace/describeEvent.ts then computes the first Lyapunov coefficient at the located point
+ * (`lyapunovCoefficient`, hopfCoefficient.ts).
  */
 import type { Eigenvalue } from '../types.js';
 
@@ -47,24 +49,6 @@ export function complexUnstableCount(eigs: readonly Eigenvalue[], tol: number): 
   let count = 0;
   for (const e of eigs) if (Math.abs(e.im) > tol && e.re > 0) count++;
   return count;
-}
-
-/**
- * True when two real eigenvalues λ, μ (|Im| ≤ tol, |λ| > tol) have |λ + μ| ≤ tol while no complex
- * eigenvalue (|Im| > tol) has |Re| ≤ tol: the zero of `hopfTest` is a neutral saddle, not a Hopf
- * point. A suitable tol is about 1e-6 · max(1, max |λ|) (common practice).
- */
-export function isNeutralSaddle(eigs: readonly Eigenvalue[], tol: number): boolean {
-  const real = eigs.filter((e) => Math.abs(e.im) <= tol);
-  if (eigs.some((e) => Math.abs(e.im) > tol && Math.abs(e.re) <= tol)) return false;
-  for (let i = 0; i < real.length; i++) {
-    for (let j = i + 1; j < real.length; j++) {
-      const a = real[i]!.re;
-      const b = real[j]!.re;
-      if (Math.abs(a) > tol && Math.abs(a + b) <= tol) return true;
-    }
-  }
-  return false;
 }
 
 /** The eigenvalue with Im > tol and the smallest |Re| (the pair closest to the axis), or null. */

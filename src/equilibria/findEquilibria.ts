@@ -27,7 +27,7 @@ export interface FindEquilibriaOptions {
   box?: Box;
   starts?: number;
   /** Selects the start-point stream: the same value always gives the same starts (default 1). */
-  seed?: number;
+  stream?: number;
   guess?: Float64Array;
   /**
    * Report roots found outside the box too (the box then only places the start points). For a
@@ -94,7 +94,7 @@ export function findEquilibria(system: System, p: Float64Array, opts: FindEquili
   const n = system.n;
   const guess = opts.guess ?? Float64Array.from(system.info.states.map((s) => s.start));
   const box = opts.box ?? boxAround(guess, EQUILIBRIA.boxRelative, EQUILIBRIA.boxAbsolute);
-  const starts = [guess, ...startPoints(box, opts.starts ?? EQUILIBRIA.starts, opts.seed ?? 1)];
+  const starts = [guess, ...startPoints(box, opts.starts ?? EQUILIBRIA.starts, opts.stream ?? 1)];
   const F: VectorFunction = (x, out) => system.rhs(x, p, out);
   const J: VectorFunction = (x, out) => system.jacobian(x, p, out);
   const settings = { power: EQUILIBRIA.deflationPower, shift: EQUILIBRIA.deflationShift };

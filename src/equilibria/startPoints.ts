@@ -4,6 +4,7 @@
  * (Cranley & Patterson 1976, SIAM J. Numer. Anal. 13(6):904–914), which breaks the diagonal
  * alignment the plain sequence shows in high dimensions. The same stream number always gives the same points.
  */
+import { radicalInverse } from '../linalg/radicalInverse.js';
 
 export interface Box {
   lo: Float64Array;
@@ -15,17 +16,6 @@ function primes(n: number): number[] {
   const out: number[] = [];
   for (let c = 2; out.length < n; c++) if (out.every((p) => c % p !== 0)) out.push(c);
   return out;
-}
-
-/** Radical inverse of i in base b, in [0, 1). */
-function radicalInverse(i: number, b: number): number {
-  let f = 1;
-  let r = 0;
-  for (let k = i; k > 0; k = Math.floor(k / b)) {
-    f /= b;
-    r += f * (k % b);
-  }
-  return r;
 }
 
 /** Deterministic uniform generator on [0, 1) (mulberry32, a 32-bit mixing generator; common practice). */

@@ -4,6 +4,7 @@
  * backward in time with `followCurve`. Start points closer than `nearRadius` to an equilibrium are
  * skipped (they would end at once).
  */
+import { radicalInverse } from '../linalg/radicalInverse.js';
 import type { Equilibrium, System } from '../types.js';
 import { followCurve, type CurveLimits, type FollowedCurve } from './followCurve.js';
 import { planeDistance, stateAt, windowSize, type PlaneFrame, type Point2, type PortraitWindow } from './plane.js';
@@ -23,14 +24,6 @@ export interface TrajectoryOptions {
   /** Number of start points. */
   starts: number;
   limits: CurveLimits;
-}
-
-/** Radical inverse of i in base b (van der Corput). */
-function radicalInverse(i: number, b: number): number {
-  let r = 0;
-  let f = 1 / b;
-  for (let k = i; k > 0; k = Math.floor(k / b), f /= b) r += (k % b) * f;
-  return r;
 }
 
 /** The first `count` Halton points (bases 2, 3; indices from 1) mapped onto the window. */

@@ -10,7 +10,7 @@ import { buildPortrait } from '../../src/portrait/buildPortrait.js';
 import { PORTRAIT_MARKS, portraitSpec } from '../../src/portrait/portraitSpec.js';
 import { CAUTION } from '../../src/report/caution.js';
 import { compileChart, renderPage } from '../../src/report/renderPage.js';
-import { expectClose } from '../compile/close.js';
+import { expectClose } from '../helpers/close.js';
 import { schemaErrors } from '../report/diagramSchemaCheck.js';
 import { hoverTooltip, launchBrowser, openPage, pageFolder, screenshot } from './browserPage.js';
 

@@ -4,7 +4,7 @@
  */
 import { describe, it } from 'vitest';
 import { compileModel } from '../../src/compile/compileModel.js';
-import { expectClose } from './close.js';
+import { expectClose } from '../helpers/close.js';
 import { modelFromText } from './modelFromText.js';
 
 interface Case {

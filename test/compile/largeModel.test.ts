@@ -8,7 +8,7 @@ import { checkJacobian } from '../../src/compile/checkJacobian.js';
 import { compileModel } from '../../src/compile/compileModel.js';
 import { jacobianKernel, rhsKernel } from '../../src/compile/kernels.js';
 import { lowerModel } from '../../src/compile/lower.js';
-import { expectClose } from './close.js';
+import { expectClose } from '../helpers/close.js';
 import { modelFromText, startOf } from './modelFromText.js';
 
 const N = 50;

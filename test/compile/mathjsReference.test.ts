@@ -1,13 +1,13 @@
 /**
  * Jacobians against an independent reference computation: mathjs' symbolic `derivative` evaluated
- * with mathjs' own `evaluate`, on a pool of expressions at random points (fast-check, fixed seed).
+ * with mathjs' own `evaluate`, on a pool of expressions at random points (fast-check, fixed generator start).
  * mathjs does not differentiate min/max, so they are left out of this pool (see oneSided.test.ts).
  */
 import fc from 'fast-check';
 import { derivative, parse } from 'mathjs';
 import { describe, it } from 'vitest';
 import { compileModel } from '../../src/compile/compileModel.js';
-import { expectClose } from './close.js';
+import { expectClose } from '../helpers/close.js';
 import { modelFromText } from './modelFromText.js';
 
 const POOL = [

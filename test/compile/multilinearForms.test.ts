@@ -6,7 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import { compileModel } from '../../src/compile/compileModel.js';
 import type { System } from '../../src/types.js';
-import { expectClose } from './close.js';
+import { expectClose } from '../helpers/close.js';
 import { ALL_MODELS, modelFromText, REACTOR } from './models.js';
 import { startOf } from './modelFromText.js';
 

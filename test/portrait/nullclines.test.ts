@@ -16,6 +16,7 @@ describe('nullclines', () => {
       jacobian: (s, _p, j) => { j[0] = 2 * s[0]!; j[1] = 2 * s[1]!; j[2] = -1; j[3] = 1; },
     });
     const [circle, line] = nullclines(sys, nominalParameters(sys), frame([-2, 2.1], [-1.7, 1.9]));
+    // Bounds in this test (1e-6 on the radius, 1e-10 residual, 1e-12 and 10 digits on the line): common practice.
     expect(circle!.polylines).toHaveLength(1);
     const ring = circle!.polylines[0]!;
     expect(ring.length).toBeGreaterThan(100);
@@ -61,6 +62,7 @@ describe('nullclines', () => {
     const prey = (x: number): number => (params.r / params.a) * (1 - x / params.K) * (1 + params.a * params.h * x);
     const xPredator = params.m / (params.a * (params.e - params.m * params.h)); // = 0.4
     const [fx, fy] = nullclines(sys, nominalParameters(sys), frame([-0.3, 3.5], [-0.25, 2]));
+    // The 1e-9 distance to a closed form and the minimum of 50 vertices per branch: common practice.
     let onAxis = 0, onCurve = 0;
     for (const v of vertices(fx!.polylines)) {
       const axis = Math.abs(v.x) < 1e-9, curve = Math.abs(v.y - prey(v.x)) < 1e-9;

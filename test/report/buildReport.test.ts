@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { buildReport } from '../../src/report/buildReport.js';
 import { CAUTION } from '../../src/report/caution.js';
 import { eventMeaning } from '../../src/report/eventWords.js';
-import { expectClose } from '../compile/close.js';
+import { expectClose } from '../helpers/close.js';
 import { FOLD_LAMBDA, FOLD_X, hopfTrace, info, sCurveTrace, transcriticalTrace } from './fixtures.js';
 
 const opts = { parameter: 'lambda', version: '0.1.0', warnMargin: 0.1, failMargin: 0 };

@@ -5,7 +5,7 @@ import { UsageError, message } from '../../src/errors.js';
 import { buildReport } from '../../src/report/buildReport.js';
 import { DIAGRAM_MARKS, diagramSpec } from '../../src/report/diagramSpec.js';
 import { compileChart } from '../../src/report/renderPage.js';
-import { expectClose } from '../compile/close.js';
+import { expectClose } from '../helpers/close.js';
 import { schemaErrors } from './diagramSchemaCheck.js';
 import { FOLD_LAMBDA, FOLD_X, hopfTrace, info, sCurveTrace, transcriticalTrace } from './fixtures.js';
 

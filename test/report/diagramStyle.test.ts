@@ -58,6 +58,7 @@ describe('diagram style', () => {
   it('draws every branch colour dark enough to show as a thin line on white', () => {
     for (const c of BRANCH_COLOURS) {
       const [l] = lab(linear(c));
+      // The L* band 30..70 (dark enough for a thin line on white, light enough to tell hues apart): common practice.
       expect(l, c).toBeGreaterThanOrEqual(30);
       expect(l, c).toBeLessThanOrEqual(70);
     }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { computeMargin } from '../../src/report/margin.js';
-import { expectClose } from '../compile/close.js';
+import { expectClose } from '../helpers/close.js';
 import { FOLD_LAMBDA, sCurveTrace, transcriticalTrace } from './fixtures.js';
 
 const base = { parameter: 'lambda', warnMargin: 0.1, failMargin: 0 };

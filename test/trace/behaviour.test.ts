@@ -11,7 +11,7 @@ import { traceSettings } from '../../src/trace/traceSettings.js';
 import type { SpecialPoint } from '../../src/types.js';
 import { makeSystem } from '../helpers/handSystem.js';
 import { bisect } from './bisect.js';
-import { expectClose } from './close.js';
+import { expectClose } from '../helpers/close.js';
 import { expectAllConverged } from './expectTraced.js';
 import { scalarSystem, withStableDirection } from './traceSystems.js';
 

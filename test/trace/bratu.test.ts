@@ -16,7 +16,7 @@ import { traceBranches } from '../../src/trace/traceBranches.js';
 import { traceSettings } from '../../src/trace/traceSettings.js';
 import { makeSystem } from '../helpers/handSystem.js';
 import { bisect } from './bisect.js';
-import { expectClose } from './close.js';
+import { expectClose } from '../helpers/close.js';
 
 function bratu(n: number): System {
   const h2 = (n + 1) ** 2;

@@ -37,7 +37,7 @@ import { traceBranches } from '../../src/trace/traceBranches.js';
 import { traceSettings } from '../../src/trace/traceSettings.js';
 import type { System } from '../../src/types.js';
 import { makeSystem } from '../helpers/handSystem.js';
-import { expectClose } from './close.js';
+import { expectClose } from '../helpers/close.js';
 import { expectAllConverged } from './expectTraced.js';
 
 /** Common practice values for a diffusive Brusselator with patterns near b ≈ 3 (no source). */

@@ -5,7 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { traceBranches } from '../../src/trace/traceBranches.js';
 import { traceSettings } from '../../src/trace/traceSettings.js';
-import { expectClose } from './close.js';
+import { expectClose } from '../helpers/close.js';
 import { expectAllConverged } from './expectTraced.js';
 import { hopfNormalForm, scalarSystem } from './traceSystems.js';
 

@@ -9,7 +9,7 @@ import { traceBranches } from '../../src/trace/traceBranches.js';
 import { traceSettings } from '../../src/trace/traceSettings.js';
 import type { Trace } from '../../src/types.js';
 import { bisect } from './bisect.js';
-import { expectClose } from './close.js';
+import { expectClose } from '../helpers/close.js';
 import { expectAllConverged } from './expectTraced.js';
 import { makeSystem } from '../helpers/handSystem.js';
 import { hopfNormalForm, withStableDirection } from './traceSystems.js';

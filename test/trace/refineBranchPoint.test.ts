@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { makeExtendedSystem } from '../../src/trace/extendedSystem.js';
 import { refineBranchPoint } from '../../src/trace/refineBranchPoint.js';
 import { makeSystem } from '../helpers/handSystem.js';
-import { expectClose } from './close.js';
+import { expectClose } from '../helpers/close.js';
 import { scalarSystem } from './traceSystems.js';
 
 const options = { absTol: 1e-12, maxIter: 12, stepTol: 1e-13, maxDistance: 1 };
