@@ -1,8 +1,8 @@
 /**
- * Command line: flags → pipeline → files and stdout. The only module that uses process.exit,
- * stdout and stderr. Every failure prints one line `branchtrace: <message>` with a non-zero exit
- * status (2 usage or model, 3 numerics or a failed margin gate, 130 interrupted, 1 internal error,
- * with the stack only under BRANCHTRACE_DEBUG=1).
+ * Command line: flags → pipeline → files and stdout. With runSweep.ts (a second Ctrl-C exits at
+ * once), the only module that uses process.exit, stdout and stderr. Every failure prints one line
+ * `branchtrace: <message>` with a non-zero exit status (2 usage or model, 3 numerics or a failed
+ * margin gate, 130 interrupted, 1 internal error, with the stack only under BRANCHTRACE_DEBUG=1).
  */
 import { Command, CommanderError, Option } from 'commander';
 import { basename, extname, join } from 'node:path';
@@ -198,7 +198,7 @@ function program(): Command {
     });
 
   cmd.command('sweep')
-    .description('follow every equilibrium branch as one parameter moves; write report.json, report.md, points.csv and diagram.html')
+    .description('follow every equilibrium branch as one parameter moves; write report.json, report.md, points.csv and diagram.html/.vl.json/.svg')
     .argument('<model>', 'model file (YAML or JSON)')
     .requiredOption('--vary <NAME>', 'the parameter to move')
     .requiredOption('--from <A>', 'start of the range (negative values are fine: --from -0.5)')

@@ -39,6 +39,18 @@ describe('sweep()', () => {
     expect(report.branches.map((b) => b.id)).toEqual(report.branches.map((_, i) => i + 1));
   });
 
+  it('words a fold by what is lost: the reactor\'s upper fold joins two unstable states', () => {
+    // Uppal, Ray & Poore (1974) form with B = 14, beta = 2 (models/cooled-tank-reactor.yaml): along the
+    // S-curve the lower sheet is stable up to the fold near Da = 0.1057; the middle sheet is a saddle and
+    // the upper sheet is unstable (trace > 0) up to its Hopf point near Da = 0.1309, so the fold near
+    // Da = 0.0889 joins two unstable states (analytic: the Jacobian along the x2 parametrisation).
+    const { report } = sweep(readModelFile('models/cooled-tank-reactor.yaml'), { vary: 'Da', from: 0.02, to: 0.2 });
+    const folds = report.events.filter((e) => e.type === 'fold').sort((a, b) => a.parameter - b.parameter);
+    expect(folds).toHaveLength(2);
+    expect(folds[0]!.meaning).toMatch(/^two unstable steady states meet and vanish/);
+    expect(folds[1]!.meaning).toMatch(/^the steady state disappears: expect a jump/);
+  });
+
   it('rejects from = to and an unknown parameter with the messages of src/errors.ts', () => {
     const model = readModelFile('models/brusselator.yaml');
     expect(() => sweep(model, { vary: 'b', from: 2, to: 2 })).toThrow(new UsageError(message.emptyRange(2, 2)));

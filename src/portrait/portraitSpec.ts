@@ -12,6 +12,8 @@
  * Arrow geometry is computed here in pixels so that every arrow has the same length on screen.
  */
 import type { TopLevelSpec } from 'vega-lite';
+import { CAUTION } from '../report/caution.js';
+import { wrapText } from '../report/wrapText.js';
 import type { Eigenvalue } from '../types.js';
 import type { PortraitData, PortraitEquilibrium } from './buildPortrait.js';
 import type { Point2 } from './plane.js';
@@ -99,6 +101,8 @@ export function portraitSpec(data: PortraitData, opts: PortraitSpecOptions = POR
   }));
   const subtitle = [data.parameters.map((q) => `${q.name} = ${q.value}${q.unit !== undefined ? ` ${q.unit}` : ''}`).join(', ')];
   if (data.note !== undefined) subtitle.push(data.note);
+  // The caution travels with the chart, so that the SVG alone carries it (110 characters a line: common practice).
+  subtitle.push(...wrapText(`Caution: ${CAUTION}`, 110));
 
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',

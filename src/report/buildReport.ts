@@ -31,7 +31,7 @@ export function buildReport(trace: Trace, info: ModelInfo, opts: ReportOptions):
     range: { from: trace.settings.from, to: trace.settings.to },
     settings: { ...trace.settings, warnMargin: opts.warnMargin, failMargin: opts.failMargin },
     branches: trace.branches.map((b) => reportBranch(b, trace.events, names)),
-    events: trace.events.map((e) => reportEvent(e, names)),
+    events: trace.events.map((e) => reportEvent(e, names, touchesStable(e, trace.branches))),
     margin: nominal === undefined ? null : computeMargin(trace, {
       parameter: opts.parameter, nominal, warnMargin: opts.warnMargin, failMargin: opts.failMargin,
       ...(opts.operatingState === undefined ? {} : { operatingState: opts.operatingState }),
@@ -64,7 +64,14 @@ function reportBranch(branch: Branch, events: readonly SpecialPoint[], names: re
   };
 }
 
-function reportEvent(e: SpecialPoint, names: readonly string[]): ReportEvent {
+/** Whether the branch of a special point is stable at either neighbouring point. */
+function touchesStable(e: SpecialPoint, branches: readonly Branch[]): boolean {
+  const points = branches.find((b) => b.id === e.branch)?.points;
+  if (points === undefined) return true;
+  return e.between.some((k) => points[k]?.stable === true);
+}
+
+function reportEvent(e: SpecialPoint, names: readonly string[], nearStable: boolean): ReportEvent {
   const out: ReportEvent = {
     id: e.id,
     type: e.type,
@@ -72,7 +79,7 @@ function reportEvent(e: SpecialPoint, names: readonly string[]): ReportEvent {
     state: stateRecord(e.state, names),
     branch: e.branch,
     eigenvalues: e.eigenvalues.map((v: Eigenvalue) => ({ re: v.re, im: v.im })),
-    meaning: eventMeaning(e.type, e.criticality),
+    meaning: eventMeaning(e.type, e.criticality, nearStable),
     residual: e.residual,
     iterations: e.iterations,
   };

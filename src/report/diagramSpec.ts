@@ -28,6 +28,7 @@ import { BRANCH_COLOURS, NOMINAL_COLOUR, POINT_STYLE, STABILITY_DASH } from './d
 import { EVENT_LABELS } from './eventWords.js';
 import { formatNumber } from './formatNumber.js';
 import { marginLabel } from './marginText.js';
+import { wrapText } from './wrapText.js';
 import { withUnit } from './withUnit.js';
 
 export interface DiagramOptions {
@@ -59,6 +60,8 @@ export const DIAGRAM_MARKS = {
 const NORM_FIELD = 'norm';
 /** Legend lines long and thick enough to show the dash pattern (common practice). */
 const LINE_LEGEND = { symbolSize: 500, symbolStrokeWidth: 2 } as const;
+/** Characters per subtitle line of the caution (fits the panel width at the subtitle font; common practice). */
+const CAUTION_LINE = 110;
 const ZOOM = 'bt_zoom';
 
 interface Panel {
@@ -160,7 +163,7 @@ export function diagramSpec(report: Report, opts: DiagramOptions = {}): TopLevel
 function chartStyle(report: Report, specials: readonly DiagramRow[]) {
   const branchNames = report.branches.map((b) => `branch ${b.id}`);
   const present = EVENT_LABELS.filter((label) => specials.some((r) => r.type === label));
-  const pointLegend = { title: 'Special point' };
+  const pointLegend = { title: 'Special point', labelLimit: 260 };
   return {
     present,
     x: {
@@ -206,9 +209,10 @@ function diagramSubtitle(report: Report): string[] {
   const range = `${report.parameter} from ${formatNumber(report.range.from)} to ${formatNumber(report.range.to)}${unit}`;
   const counts = `${report.branches.length} branch${report.branches.length === 1 ? '' : 'es'}, ` +
     `${report.events.length} special point${report.events.length === 1 ? '' : 's'}`;
-  const lines = [`${range}; ${counts}. Solid lines: stable; dashed: unstable. Drag to pan, scroll to zoom, double-click to reset.`];
+  const lines = [`${range}; ${counts}. Solid lines: stable; dashed: unstable.`];
   if (report.interrupted) lines.push('Interrupted before the end: the branches shown are incomplete.');
-  return lines;
+  // The caution travels with the chart, so that the SVG alone (in a document or slide) carries it.
+  return [...lines, ...wrapText(`Caution: ${report.caution}`, CAUTION_LINE)];
 }
 
 function statePanels(report: Report, plot: readonly string[] | undefined): Panel[] {

@@ -14,6 +14,7 @@ export function diagramText(report: Report): PageText {
   const notes = [report.caution];
   if (report.interrupted) notes.push('The run was interrupted: the diagram is incomplete.');
   if (report.margin !== null) notes.push(marginSentences(report.margin, report.events).join(' '));
+  notes.push('Drag to pan, scroll to zoom, double-click to reset; hover over a special point for its values.');
   notes.push(...report.warnings.map((w) => `Warning: ${w}`));
   return {
     title: name,

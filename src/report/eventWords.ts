@@ -25,11 +25,20 @@ export const EVENT_LABELS = [
   'transcritical', 'pitchfork', 'branch point',
 ] as const;
 
-export function eventMeaning(type: EventType, criticality?: Criticality): string {
+/**
+ * `touchesStable`: whether the branch is stable on at least one side of the point. Where it is
+ * unstable on both sides, no state the plant can run at is lost or starts to oscillate there.
+ */
+export function eventMeaning(type: EventType, criticality?: Criticality, touchesStable = true): string {
   switch (type) {
     case 'fold':
+      if (!touchesStable) return 'two unstable steady states meet and vanish; no stable operating state is lost here';
       return 'the steady state disappears: expect a jump to another state, and hysteresis when the parameter moves back';
     case 'hopf':
+      if (!touchesStable) {
+        return 'a further pair of eigenvalues of an already unstable steady state crosses the imaginary axis; ' +
+          'no stable state starts to oscillate here';
+      }
       if (criticality === 'supercritical') return 'oscillations start with small amplitude that grows gradually';
       if (criticality === 'subcritical') {
         return 'oscillations start abruptly (dangerous: a jump to large oscillations, which may persist when the parameter moves back)';

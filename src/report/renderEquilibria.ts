@@ -4,6 +4,8 @@
  */
 import type { EquilibriumSearch } from '../equilibria/findEquilibria.js';
 import type { Eigenvalue, Equilibrium, ModelInfo } from '../types.js';
+import { message } from '../errors.js';
+import { CAUTION } from './caution.js';
 import { formatEigenvalues, formatNumber } from './formatNumber.js';
 
 export interface EquilibriumJson {
@@ -23,6 +25,7 @@ export interface EquilibriaJson {
   model: string;
   parameters: Record<string, number>;
   equilibria: EquilibriumJson[];
+  caution: string;
   search: Omit<EquilibriumSearch['diagnostics'], 'box'> & { box: { lo: Record<string, number>; hi: Record<string, number> } };
 }
 
@@ -51,6 +54,7 @@ export function equilibriaJson(info: ModelInfo, params: Float64Array, search: Eq
     model: info.file,
     parameters: named(info.parameters.map((q) => q.name), params),
     equilibria: search.equilibria.map((e) => equilibriumJson(e, names)),
+    caution: CAUTION,
     search: { ...rest, box: { lo: named(names, box.lo), hi: named(names, box.hi) } },
   };
 }
@@ -72,7 +76,7 @@ export function equilibriaText(info: ModelInfo, params: Float64Array, search: Eq
   const out = [`${info.title ?? info.file}`, `parameters: ${setting}`, ''];
   const eqs = search.equilibria;
   if (eqs.length === 0) {
-    out.push('no equilibrium found in the search box; widen it with --box NAME=LO:HI or give --start NAME=VALUE');
+    out.push(message.noEquilibriumFound(), '', CAUTION);
     return out.join('\n') + '\n';
   }
   out.push(`${eqs.length} equilibri${eqs.length === 1 ? 'um' : 'a'} found:`, '');
@@ -95,6 +99,6 @@ export function equilibriaText(info: ModelInfo, params: Float64Array, search: Eq
   }
   const diag = search.diagnostics;
   out.push('', `search: ${diag.startsUsed} start points, ${diag.solves} Newton solves, ${diag.iterations} iterations` +
-    (diag.budgetExhausted ? ' (iteration budget used up: some equilibria may be missing)' : ''));
+    (diag.budgetExhausted ? ' (iteration budget used up: some equilibria may be missing)' : ''), '', CAUTION);
   return out.join('\n') + '\n';
 }

@@ -2,7 +2,7 @@ import type { Report, ReportBranch, ReportEvent } from '../types.js';
 import { coefficientText } from './coefficientText.js';
 import { eventLabel } from './eventWords.js';
 import { formatEigenvalues, formatNumber } from './formatNumber.js';
-import { marginSentences } from './marginText.js';
+import { marginSentences, percent } from './marginText.js';
 import { stopWords } from './stopWords.js';
 import { withUnit } from './withUnit.js';
 
@@ -32,7 +32,8 @@ function sweepSection(r: Report): string[] {
     `- Other parameters: ${others.length === 0 ? 'none' : others.map((p) => `${md(p.name)} = ${formatNumber(p.value)}${p.unit ? ` ${md(p.unit)}` : ''}`).join(', ')}.`,
     `- Step length: first ${formatNumber(s.ds)}, smallest ${formatNumber(s.dsMin)}, largest ${formatNumber(s.dsMax)}; at most ${s.maxPoints} points per branch and ${s.maxBranches} branches.`,
     `- Corrector: tolerance ${formatNumber(s.absTol)}, at most ${s.maxIter} Newton iterations.`,
-    `- Margins: warning below ${formatNumber(s.warnMargin * 100, 3)}%, failing below ${formatNumber(s.failMargin * 100, 3)}% of the nominal value.`,
+    `- Margins: warning below ${percent(s.warnMargin)} of the nominal value; ` +
+      (s.failMargin > 0 ? `failing below ${percent(s.failMargin)}.` : 'no failing margin (--fail-margin not set).'),
   ];
   if (r.interrupted) lines.push('- The run was interrupted: the results below are incomplete.');
   return [...lines, ''];

@@ -90,6 +90,14 @@ describe('renderPage', () => {
     expect(page.svg).toContain('0 branches, 0 special points');
   });
 
+  it('carries the caution inside the static SVG, so the picture alone keeps it', async () => {
+    const report = buildReport(sCurveTrace(), info('S', 'lambda'), opts);
+    const page = await renderPage(diagramSpec(report), diagramText(report));
+    // Visible text only: tags (and the attributes inside them) removed, line breaks joined.
+    const svgText = page.svg.replace(/<[^>]+>/g, ' ').replace(/\s+/g, ' ');
+    expect(svgText).toContain(`Caution: ${CAUTION}`);
+  });
+
   it('puts the caution first among the page notes, then the margin and the warnings', () => {
     const report = buildReport(transcriticalTrace(), info('Crossing', 'lambda', 'mol/L'), opts);
     const text = diagramText(report);
