@@ -76,3 +76,13 @@ export const MARGIN = {
   warn: 0.1,
   fail: 0,
 } as const;
+
+/**
+ * Eigenvalues: |Im λ| at most this, relative to 1 + the largest |λ|, counts as real (and above it as
+ * one of a complex pair). Used by detection, the normal-form coefficients and the report's pairing.
+ * Common practice.
+ */
+export const IMAG_TOL = 1e-8;
+
+/** Normal-form coefficients: 'degenerate' when |l1| is at most this fraction of its terms. Common practice. */
+export const DEGENERATE_TOL = 1e-8;

@@ -17,6 +17,7 @@
  * (./criticalVectors.ts); that eigenvalue is reported, so a point located only approximately
  * still gives accurate vectors.
  */
+import { IMAG_TOL } from '../defaults.js';
 import { eigenvalues } from '../linalg/eig.js';
 import type { System } from '../types.js';
 import { complexSecond, innerProduct } from './complexAlgebra.js';
@@ -27,7 +28,7 @@ export type FoldStatus = 'ok' | 'max-iter' | 'no-critical-eigenvalue' | 'singula
 export interface FoldOptions {
   /** Also compute ⟨p, ∂f/∂p_k⟩ for this parameter index. */
   parameterIndex?: number;
-  /** |Im λ| at most this (times 1 + max |λ|) makes λ real. Default 1e-8 (common practice). */
+  /** |Im λ| at most this (times 1 + max |λ|) makes λ real. Default IMAG_TOL (src/defaults.ts). */
   imagTol?: number;
 }
 
@@ -73,7 +74,7 @@ export function foldCoefficient(
   if (!jac.every(Number.isFinite) || !x.every(Number.isFinite)) return failed('non-finite');
   const eigs = eigenvalues(jac, n);
   const big = eigs.reduce((m, e) => Math.max(m, Math.hypot(e.re, e.im)), 0);
-  const tol = (opts.imagTol ?? 1e-8) * (1 + big);
+  const tol = (opts.imagTol ?? IMAG_TOL) * (1 + big);
   let lambda = NaN;
   for (const e of eigs) if (Math.abs(e.im) <= tol && !(Math.abs(e.re) >= Math.abs(lambda))) lambda = e.re;
   if (Number.isNaN(lambda)) return failed('no-critical-eigenvalue');

@@ -15,6 +15,7 @@
  * vectors come from inverse iteration at that eigenvalue (./criticalVectors.ts), so a point located
  * to within a small Re λ = μ still gives accurate vectors; μ is reported as `realPart`.
  */
+import { DEGENERATE_TOL, IMAG_TOL } from '../defaults.js';
 import { eigenvalues } from '../linalg/eig.js';
 import type { Criticality, System } from '../types.js';
 import {
@@ -26,9 +27,9 @@ import { criticalPair } from './hopfTest.js';
 export type CoefficientStatus = 'ok' | 'max-iter' | 'no-critical-eigenvalue' | 'singular' | 'non-finite';
 
 export interface LyapunovOptions {
-  /** |Im λ| above this (times 1 + ‖λ‖max) makes λ complex. Default 1e-8 (common practice). */
+  /** |Im λ| above this (times 1 + ‖λ‖max) makes λ complex. Default IMAG_TOL (src/defaults.ts). */
   imagTol?: number;
-  /** 'degenerate' when |l1| ≤ degenerateTol · termScale. Default 1e-8 (common practice). */
+  /** 'degenerate' when |l1| ≤ degenerateTol · termScale. Default IMAG_TOL (src/defaults.ts). */
   degenerateTol?: number;
 }
 
@@ -79,7 +80,7 @@ export function lyapunovCoefficient(
   if (!a.every(Number.isFinite) || !x.every(Number.isFinite)) return failed('non-finite');
   const eigs = eigenvalues(a, n);
   const big = eigs.reduce((m, e) => Math.max(m, Math.hypot(e.re, e.im)), 0);
-  const lambda = criticalPair(eigs, (opts.imagTol ?? 1e-8) * (1 + big));
+  const lambda = criticalPair(eigs, (opts.imagTol ?? IMAG_TOL) * (1 + big));
   if (lambda === null) return failed('no-critical-eigenvalue');
   const omega = lambda.im;
   const v = criticalVectors(a, n, lambda);
@@ -101,7 +102,7 @@ export function lyapunovCoefficient(
   const size = (c: Complex): number => Math.hypot(c.re, c.im);
   const termScale = (size(cubic) + 2 * size(fromH11) + size(fromH20)) / (2 * omega);
   if (!Number.isFinite(l1)) return failed('non-finite', omega);
-  const degenerate = Math.abs(l1) <= (opts.degenerateTol ?? 1e-8) * termScale;
+  const degenerate = Math.abs(l1) <= (opts.degenerateTol ?? DEGENERATE_TOL) * termScale;
   return {
     l1,
     omega,

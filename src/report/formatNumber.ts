@@ -1,3 +1,4 @@
+import { IMAG_TOL } from '../defaults.js';
 import type { Eigenvalue } from '../types.js';
 
 const MINUS = '\u2212';
@@ -26,7 +27,7 @@ function exponentForm(a: number, digits: number): string {
 
 /**
  * Eigenvalues in one short line, a complex pair written once: "−0.12 ± 1.3i, −2". Pairs are recognised
- * by a matching eigenvalue with opposite imaginary part (relative tolerance 1e-8, common practice).
+ * by a matching eigenvalue with opposite imaginary part (relative tolerance IMAG_TOL of src/defaults.ts).
  */
 export function formatEigenvalues(values: readonly Eigenvalue[], digits = 3): string {
   const used = new Array<boolean>(values.length).fill(false);
@@ -48,5 +49,5 @@ export function formatEigenvalues(values: readonly Eigenvalue[], digits = 3): st
 
 function isConjugate(a: Eigenvalue, b: Eigenvalue): boolean {
   const scale = Math.max(Math.abs(a.re), Math.abs(a.im), 1e-300);
-  return Math.abs(a.re - b.re) <= 1e-8 * scale && Math.abs(a.im + b.im) <= 1e-8 * scale;
+  return Math.abs(a.re - b.re) <= IMAG_TOL * scale && Math.abs(a.im + b.im) <= IMAG_TOL * scale;
 }

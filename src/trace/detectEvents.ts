@@ -11,6 +11,7 @@
  *                 saddle flips the sign only), located on the real part of the critical pair
  *                 (pairRealPart.ts).
  */
+import { IMAG_TOL } from '../defaults.js';
 import { eigenvalues } from '../linalg/eig.js';
 import type { Eigenvalue, EventType } from '../types.js';
 import type { ExtendedSystem } from './extendedSystem.js';
@@ -71,7 +72,7 @@ export function detectEvents(
     } else if (foldBetween(points, i, n)) {
       record('fold', i, (_z, t, tangent) => (tangent.ok ? t[n]! : NaN), a.t[n]!, b.t[n]!);
     }
-    const imagTol = 1e-8 * (1 + Math.max(size(a.eigenvalues), size(b.eigenvalues)));
+    const imagTol = IMAG_TOL * (1 + Math.max(size(a.eigenvalues), size(b.eigenvalues)));
     if (hopfBetween(a.eigenvalues, b.eigenvalues, imagTol)) {
       const pair = criticalPair(a.eigenvalues, imagTol) ?? criticalPair(b.eigenvalues, imagTol);
       if (pair === null) continue;
