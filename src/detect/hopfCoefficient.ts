@@ -29,7 +29,7 @@ export type CoefficientStatus = 'ok' | 'max-iter' | 'no-critical-eigenvalue' | '
 export interface LyapunovOptions {
   /** |Im λ| above this (times 1 + ‖λ‖max) makes λ complex. Default IMAG_TOL (src/defaults.ts). */
   imagTol?: number;
-  /** 'degenerate' when |l1| ≤ degenerateTol · termScale. Default IMAG_TOL (src/defaults.ts). */
+  /** 'degenerate' when |l1| ≤ degenerateTol · termScale. Default DEGENERATE_TOL (src/defaults.ts). */
   degenerateTol?: number;
 }
 
