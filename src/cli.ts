@@ -121,20 +121,15 @@ async function sweepCommand(file: string, f: SweepFlags): Promise<number> {
   };
   const plot = parsePlot(f.plot);
   if (opts.from === opts.to) throw new UsageError(message.emptyRange(opts.from, opts.to));
-  // The worker starts at once (it loads and checks the model itself; its errors come back as the
-  // same one-line errors); meanwhile this thread checks what only the diagram needs.
-  const progress = progressLine(opts.vary);
-  const running = runSweep(new URL('./sweepWorker.js', import.meta.url), file, opts, progress);
-  try {
-    const model = readModelFile(file);
-    for (const name of Array.isArray(plot) ? plot : []) {
-      if (!model.states.some((s) => s.name === name)) throw new UsageError(message.unknownState(name, model.states.map((s) => s.name)));
-    }
-  } catch (err) {
-    running.cancel();
-    throw err;
+  // The model is read here (a bad file fails before any thread starts) and handed to the worker,
+  // which then needs no YAML parser and starts faster.
+  const model = readModelFile(file);
+  for (const name of Array.isArray(plot) ? plot : []) {
+    if (!model.states.some((s) => s.name === name)) throw new UsageError(message.unknownState(name, model.states.map((s) => s.name)));
   }
-  const report = await running.report.finally(() => progress.clear());
+  const progress = progressLine(opts.vary);
+  const running = runSweep(new URL('./sweepWorker.js', import.meta.url), model, opts, progress);
+  const report = await running.finally(() => progress.clear());
   const dir = f.out ?? join('out', `${stem(file)}-${opts.vary}`);
   const files = await sweepFiles(report, { ...(plot !== undefined && { plot }), diagram: f.diagram !== false });
   const written = await writeOutputs(dir, files);

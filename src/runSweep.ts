@@ -7,7 +7,7 @@ import { Worker } from 'node:worker_threads';
 import { BranchtraceError } from './errors.js';
 import type { SweepOptions } from './sweep.js';
 import type { SweepJob, WorkerMessage } from './sweepWorker.js';
-import type { Report } from './types.js';
+import type { Model, Report } from './types.js';
 
 /** An error the worker raised, with its exit status. */
 export class RelayedError extends BranchtraceError {
@@ -18,18 +18,12 @@ export class RelayedError extends BranchtraceError {
 
 export type Progress = Extract<WorkerMessage, { kind: 'progress' }>;
 
-export interface RunningSweep {
-  report: Promise<Report>;
-  /** Ends the worker at once (used when the caller finds a problem before the result arrives). */
-  cancel(): void;
-}
-
 export function runSweep(
-  workerUrl: URL, path: string, opts: SweepOptions, onProgress: (p: Progress) => void,
-): RunningSweep {
+  workerUrl: URL, model: Model, opts: SweepOptions, onProgress: (p: Progress) => void,
+): Promise<Report> {
   const stop = new SharedArrayBuffer(4);
   const flag = new Int32Array(stop);
-  const job: SweepJob = { path, opts, stop };
+  const job: SweepJob = { model, opts, stop };
   // A larger young generation than the default: the trace allocates many short-lived arrays, and
   // scavenges were a sixth of a short sweep's time (measured with --cpu-prof).
   const worker = new Worker(workerUrl, { workerData: job, resourceLimits: { maxYoungGenerationSizeMb: 64 } });
@@ -38,7 +32,7 @@ export function runSweep(
     Atomics.store(flag, 0, 1);
   };
   process.on('SIGINT', onSigint);
-  const report = new Promise<Report>((resolve, reject) => {
+  return new Promise<Report>((resolve, reject) => {
     let settled = false;
     worker.on('message', (m: WorkerMessage) => {
       if (m.kind === 'progress') return onProgress(m);
@@ -58,12 +52,4 @@ export function runSweep(
     process.off('SIGINT', onSigint);
     void worker.terminate();
   });
-  return {
-    report,
-    cancel: () => {
-      report.catch(() => undefined);
-      process.off('SIGINT', onSigint);
-      void worker.terminate();
-    },
-  };
 }

@@ -6,12 +6,12 @@
  */
 import { parentPort, workerData } from 'node:worker_threads';
 import { BranchtraceError } from './errors.js';
-import { readModelFile } from './model/loadModel.js';
 import { sweep, type SweepOptions } from './sweep.js';
-import type { Report } from './types.js';
+import type { Model, Report } from './types.js';
 
 export interface SweepJob {
-  path: string;
+  /** The loaded model (plain data: structured clone carries it to the worker). */
+  model: Model;
   opts: SweepOptions;
   /** Int32Array(1) over a SharedArrayBuffer: non-zero means stop. */
   stop: SharedArrayBuffer;
@@ -30,7 +30,7 @@ function run(job: SweepJob, post: (m: WorkerMessage) => void): void {
   const stop = new Int32Array(job.stop);
   let last = 0;
   try {
-    const { report } = sweep(readModelFile(job.path), job.opts, {
+    const { report } = sweep(job.model, job.opts, {
       shouldStop: () => Atomics.load(stop, 0) !== 0,
       onProgress: (p) => {
         const now = Date.now();
