@@ -10,7 +10,9 @@ type Vec = Float64Array;
 /**
  * Hopf normal form in Cartesian coordinates (Kuznetsov 3rd ed. §3.4):
  *   x' = βx − ωy + s·x(x² + y²),   y' = ωx + βy + s·y(x² + y²),   i.e. ż = (β + iω)z + s z|z|².
- * Parameter β. Analytic: l1 = Re(c1)/ω = s/ω at β = 0.
+ * Parameter β. Analytic: with the eigenvector normalised as in src/detect/hopfCoefficient.ts,
+ * q = (1, −i)/√2, the complex coordinate is z = w/√2 (w = x + iy), so ż = (β + iω)z + 2s z|z|²:
+ * c1 = 2s and l1 = Re(c1)/ω = 2s/ω at β = 0 (see hopfCoefficient.test.ts).
  */
 export function hopfNormalForm(s: number, omega = 1): System {
   return makeSystem({
@@ -25,6 +27,8 @@ export function hopfNormalForm(s: number, omega = 1): System {
       const [u, v] = [x[0]!, x[1]!];
       out.set([p[0]! + s * (3 * u * u + v * v), -omega + 2 * s * u * v, omega + 2 * s * u * v, p[0]! + s * (u * u + 3 * v * v)]);
     },
+    paramDerivative: (x, _p, _k, out) => { out[0] = x[0]!; out[1] = x[1]!; },
+    mixedDerivative: (_x, _p, _k, v, out) => { out[0] = v[0]!; out[1] = v[1]!; },
     secondDerivative: (x, _p, a, b, out) => {
       // Hessians: f1 = s(x³ + xy²): (6sx, 2sy; 2sy, 2sx); f2 = s(x²y + y³): (2sy, 2sx; 2sx, 6sy).
       const [u, v] = [x[0]!, x[1]!];

@@ -35,36 +35,5 @@ export function withStableDirection(
   });
 }
 
-/**
- * Hopf normal form x' = μx − ωy + s·x(x²+y²), y' = ωx + μy + s·y(x²+y²), parameter μ.
- * In w = x + iy: w' = (μ + iω)w + s·w|w|².
- */
-export function hopfNormalForm(s: number, omega: number): System {
-  return makeSystem({
-    n: 2,
-    parameters: { mu: 0 },
-    rhs: (x, p, out) => {
-      const r2 = x[0]! ** 2 + x[1]! ** 2;
-      out[0] = p[0]! * x[0]! - omega * x[1]! + s * x[0]! * r2;
-      out[1] = omega * x[0]! + p[0]! * x[1]! + s * x[1]! * r2;
-    },
-    jacobian: (x, p, out) => {
-      const [u, v] = [x[0]!, x[1]!];
-      out.set([p[0]! + s * (3 * u * u + v * v), -omega + 2 * s * u * v, omega + 2 * s * u * v, p[0]! + s * (u * u + 3 * v * v)]);
-    },
-    paramDerivative: (x, _p, _k, out) => { out[0] = x[0]!; out[1] = x[1]!; },
-    secondDerivative: (x, _p, a, b, out) => {
-      const [u, v] = [x[0]!, x[1]!];
-      const cross = a[0]! * b[1]! + a[1]! * b[0]!;
-      out[0] = s * (6 * u * a[0]! * b[0]! + 2 * v * cross + 2 * u * a[1]! * b[1]!);
-      out[1] = s * (2 * v * a[0]! * b[0]! + 2 * u * cross + 6 * v * a[1]! * b[1]!);
-    },
-    thirdDerivative: (_x, _p, a, b, c, out) => {
-      const xyy = a[0]! * b[1]! * c[1]! + a[1]! * b[0]! * c[1]! + a[1]! * b[1]! * c[0]!;
-      const xxy = a[0]! * b[0]! * c[1]! + a[0]! * b[1]! * c[0]! + a[1]! * b[0]! * c[0]!;
-      out[0] = s * (6 * a[0]! * b[0]! * c[0]! + 2 * xyy);
-      out[1] = s * (6 * a[1]! * b[1]! * c[1]! + 2 * xxy);
-    },
-    mixedDerivative: (_x, _p, _k, v, out) => { out[0] = v[0]!; out[1] = v[1]!; },
-  });
-}
+/** The Hopf normal form with parameter index 0 (shared with the detection tests). */
+export { hopfNormalForm } from '../detect/detectSystems.js';
