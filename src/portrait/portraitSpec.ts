@@ -13,6 +13,7 @@
  */
 import type { TopLevelSpec } from 'vega-lite';
 import { CAUTION } from '../report/caution.js';
+import { valueWithUnit, withUnit } from '../report/withUnit.js';
 import { wrapText } from '../report/wrapText.js';
 import type { Eigenvalue } from '../types.js';
 import type { PortraitData, PortraitEquilibrium } from './buildPortrait.js';
@@ -53,7 +54,7 @@ export function nullclineLabel(name: string): string {
 }
 
 function axisTitle(a: { name: string; unit?: string }): string {
-  return a.unit !== undefined ? `${a.name} (${a.unit})` : a.name;
+  return withUnit(a.name, a.unit);
 }
 
 function formatEigenvalues(values: Eigenvalue[]): string {
@@ -99,7 +100,7 @@ export function portraitSpec(data: PortraitData, opts: PortraitSpecOptions = POR
   const equilibria = data.equilibria.map((e) => ({
     x: e.x, y: e.y, type: e.type, stability: stabilityClass(e), eigenvalues: formatEigenvalues(e.eigenvalues), residual: e.residual,
   }));
-  const subtitle = [data.parameters.map((q) => `${q.name} = ${q.value}${q.unit !== undefined ? ` ${q.unit}` : ''}`).join(', ')];
+  const subtitle = [data.parameters.map((q) => `${q.name} = ${valueWithUnit(String(q.value), q.unit)}`).join(', ')];
   if (data.note !== undefined) subtitle.push(data.note);
   // The caution travels with the chart, so that the SVG alone carries it (110 characters a line: common practice).
   subtitle.push(...wrapText(`Caution: ${CAUTION}`, 110));

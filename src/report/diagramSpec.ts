@@ -29,7 +29,7 @@ import { EVENT_LABELS } from './eventWords.js';
 import { formatNumber } from './formatNumber.js';
 import { marginLabel } from './marginText.js';
 import { wrapText } from './wrapText.js';
-import { withUnit } from './withUnit.js';
+import { valueWithUnit, withUnit } from './withUnit.js';
 
 export interface DiagramOptions {
   /** State names to plot (one panel each, in the given order), or 'norm' for one panel of ‖x‖₂. Default: every state. */
@@ -205,8 +205,7 @@ export function diagramTitle(report: Report): string {
 }
 
 function diagramSubtitle(report: Report): string[] {
-  const unit = report.unit === undefined || report.unit === '' ? '' : ` ${report.unit}`;
-  const range = `${report.parameter} from ${formatNumber(report.range.from)} to ${formatNumber(report.range.to)}${unit}`;
+  const range = `${report.parameter} from ${formatNumber(report.range.from)} to ${valueWithUnit(formatNumber(report.range.to), report.unit)}`;
   const counts = `${report.branches.length} branch${report.branches.length === 1 ? '' : 'es'}, ` +
     `${report.events.length} special point${report.events.length === 1 ? '' : 's'}`;
   const lines = [`${range}; ${counts}. Solid lines: stable; dashed: unstable.`];

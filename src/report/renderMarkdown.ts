@@ -4,7 +4,7 @@ import { eventLabel } from './eventWords.js';
 import { formatEigenvalues, formatNumber } from './formatNumber.js';
 import { marginSentences, percent } from './marginText.js';
 import { stopWords } from './stopWords.js';
-import { withUnit } from './withUnit.js';
+import { valueWithUnit, withUnit } from './withUnit.js';
 
 /** report.md: what was traced, the special points and what they mean, each branch, the margin, warnings. */
 export function renderMarkdown(report: Report): string {
@@ -29,7 +29,7 @@ function sweepSection(r: Report): string[] {
   const lines = [
     '## Sweep', '',
     `- Varied parameter: ${md(withUnit(r.parameter, r.unit))} from ${formatNumber(r.range.from)} to ${formatNumber(r.range.to)}.`,
-    `- Other parameters: ${others.length === 0 ? 'none' : others.map((p) => `${md(p.name)} = ${formatNumber(p.value)}${p.unit ? ` ${md(p.unit)}` : ''}`).join(', ')}.`,
+    `- Other parameters: ${others.length === 0 ? 'none' : others.map((p) => `${md(p.name)} = ${md(valueWithUnit(formatNumber(p.value), p.unit))}`).join(', ')}.`,
     `- Step length: first ${formatNumber(s.ds)}, smallest ${formatNumber(s.dsMin)}, largest ${formatNumber(s.dsMax)}; at most ${s.maxPoints} points per branch and ${s.maxBranches} branches.`,
     `- Corrector: tolerance ${formatNumber(s.absTol)}, at most ${s.maxIter} Newton iterations.`,
     `- Margins: warning below ${percent(s.warnMargin)} of the nominal value; ` +
