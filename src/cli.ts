@@ -63,17 +63,21 @@ function parsePlot(text: string | undefined): readonly string[] | 'norm' | undef
   return text.split(',').map((s) => s.trim()).filter((s) => s !== '');
 }
 
-/** One status line on stderr, rewritten in place (only when stderr is a terminal). */
-function progressLine(parameter: string): ((p: Progress) => void) & { clear(): void } {
+/**
+ * Progress on stderr: one status line rewritten in place when stderr is a terminal; with
+ * `--progress` also when it is not (a log file, a CI job), one line per update.
+ */
+function progressLine(parameter: string, forced: boolean): ((p: Progress) => void) & { clear(): void } {
   const tty = process.stderr.isTTY === true;
   let shown = false;
   const show = (p: Progress) => {
-    if (!tty) return;
+    if (!tty && !forced) return;
     shown = true;
-    process.stderr.write(`\r\x1b[2Ksweeping: branch ${p.branch}, ${p.points} point${p.points === 1 ? '' : 's'}, ${parameter} = ` +
-      `${formatNumber(p.parameter, 6)}, ${p.branchesDone} branch${p.branchesDone === 1 ? '' : 'es'} done`);
+    const text = `sweeping: branch ${p.branch}, ${p.points} point${p.points === 1 ? '' : 's'}, ${parameter} = ` +
+      `${formatNumber(p.parameter, 6)}, ${p.branchesDone} branch${p.branchesDone === 1 ? '' : 'es'} done`;
+    process.stderr.write(tty ? `\r\x1b[2K${text}` : `${text}\n`);
   };
-  return Object.assign(show, { clear: () => { if (shown) process.stderr.write('\r\x1b[2K'); } });
+  return Object.assign(show, { clear: () => { if (shown && tty) process.stderr.write('\r\x1b[2K'); } });
 }
 
 function sweepSummary(report: Report, written: readonly string[]): string {
@@ -104,6 +108,7 @@ interface SweepFlags extends Common {
   failMargin?: string;
   plot?: string;
   diagram?: boolean;
+  progress?: boolean;
   json?: boolean;
 }
 
@@ -127,7 +132,7 @@ async function sweepCommand(file: string, f: SweepFlags): Promise<number> {
   for (const name of Array.isArray(plot) ? plot : []) {
     if (!model.states.some((s) => s.name === name)) throw new UsageError(message.unknownState(name, model.states.map((s) => s.name)));
   }
-  const progress = progressLine(opts.vary);
+  const progress = progressLine(opts.vary, f.progress === true);
   const running = runSweep(new URL('./sweepWorker.js', import.meta.url), model, opts, progress);
   const report = await running.finally(() => progress.clear());
   const dir = f.out ?? join('out', `${stem(file)}-${opts.vary}`);
@@ -208,6 +213,7 @@ function program(): Command {
     .option('--fail-margin <F>', 'exit with status 3 when it is closer than this fraction (default 0: never)')
     .option('--plot <STATES>', 'states to draw, comma-separated, or "norm" (default: every state)')
     .option('--no-diagram', 'write only the report files, not diagram.html/.vl.json/.svg (faster, for CI gates)')
+    .option('--progress', 'print progress lines on stderr even when it is not a terminal')
     .option('--json', 'print report.json to stdout instead of the summary')
     .action(async (file: string, f: SweepFlags) => {
       process.exitCode = await sweepCommand(file, f);

@@ -29,12 +29,21 @@ it('SIGINT keeps the computed part, marks it interrupted and exits with 130', as
   const out = join(dir, 'out');
   const child = spawn(process.execPath, [
     join(process.cwd(), 'dist/cli.js'), 'sweep', model, '--vary', 'lam', '--from', '0.1', '--to', '3.4',
-    '--max-step', '0.0005', '--step', '0.0005', '--max-points', '1000000', '--out', out,
+    '--max-step', '0.0005', '--step', '0.0005', '--max-points', '1000000', '--out', out, '--progress',
   ], { stdio: ['ignore', 'pipe', 'pipe'] });
+  // Interrupt once the trace has taken at least 20 steps (so the test does not depend on machine speed).
   let stderr = '';
-  child.stderr.on('data', (d: Buffer) => { stderr += d.toString(); });
-  setTimeout(() => child.kill('SIGINT'), 2500);
+  let sent = false;
+  child.stderr.on('data', (d: Buffer) => {
+    stderr += d.toString();
+    const counts = [...stderr.matchAll(/sweeping: branch \d+, (\d+) points?/g)].map((m) => Number(m[1]));
+    if (!sent && counts.some((c) => c >= 20)) {
+      sent = true;
+      child.kill('SIGINT');
+    }
+  });
   const status = await new Promise<number | null>((resolve) => child.on('exit', (code) => resolve(code)));
+  expect(sent, stderr).toBe(true);
   expect(status, stderr).toBe(130);
   const report = JSON.parse(readFileSync(join(out, 'report.json'), 'utf8')) as {
     interrupted: boolean; branches: { stopped: string; points: unknown[] }[];
