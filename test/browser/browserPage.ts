@@ -8,6 +8,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { chromium, type Browser, type Page } from 'playwright-core';
+import { DIAGRAM_MARKS } from '../../src/report/diagramSpec.js';
 
 export const CHROMIUM = '/usr/bin/chromium';
 
@@ -90,3 +91,7 @@ export async function hoverTooltip(page: Page, selector: string, nth: number): P
   return (await tip.textContent()) ?? '';
 }
 
+
+/** CSS selectors of the diagram's branch line paths and special-point marks in one panel. */
+export const lineMarks = (panel: string): string => `g.${DIAGRAM_MARKS.svgClass(DIAGRAM_MARKS.lines(panel))} > path`;
+export const pointMarks = (panel: string): string => `g.${DIAGRAM_MARKS.svgClass(DIAGRAM_MARKS.points(panel))} > path`;

@@ -10,11 +10,11 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DIAGRAM_MARKS } from '../../src/report/diagramSpec.js';
 import { PORTRAIT_MARKS } from '../../src/portrait/portraitSpec.js';
 import { runCli, tempDir } from '../cli/runCli.js';
-import { hoverTooltip, launchBrowser, openPage, pageFolder, screenshot } from './browserPage.js';
+import { hoverTooltip, launchBrowser, openPage, pageFolder, screenshot, lineMarks, pointMarks } from './browserPage.js';
 
 const MODEL = 'models/cooled-tank-reactor.yaml';
-const lines = (panel: string) => `g.${DIAGRAM_MARKS.svgClass(DIAGRAM_MARKS.lines(panel))} > path`;
-const points = (panel: string) => `g.${DIAGRAM_MARKS.svgClass(DIAGRAM_MARKS.points(panel))} > path`;
+const lines = lineMarks;
+const points = pointMarks;
 
 let browser: Browser;
 let pages: string;

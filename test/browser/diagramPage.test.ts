@@ -3,16 +3,16 @@ import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildReport } from '../../src/report/buildReport.js';
 import { CAUTION } from '../../src/report/caution.js';
-import { DIAGRAM_MARKS, diagramSpec } from '../../src/report/diagramSpec.js';
+import { diagramSpec } from '../../src/report/diagramSpec.js';
 import { renderPage } from '../../src/report/renderPage.js';
 import { FOLD_LAMBDA, hopfTrace, info, sCurveTrace, transcriticalTrace } from '../report/fixtures.js';
-import { hoverTooltip, launchBrowser, openPage, pageFolder, screenshot } from './browserPage.js';
+import { hoverTooltip, launchBrowser, openPage, pageFolder, screenshot, lineMarks, pointMarks } from './browserPage.js';
 
 const opts = { parameter: 'lambda', version: '0.1.0', warnMargin: 0.1, failMargin: 0 };
 const HOSTILE = '<script>alert(1)</script><img src=x onerror="alert(2)">';
 
-const lines = (panel: string) => `g.${DIAGRAM_MARKS.svgClass(DIAGRAM_MARKS.lines(panel))} > path`;
-const points = (panel: string) => `g.${DIAGRAM_MARKS.svgClass(DIAGRAM_MARKS.points(panel))} > path`;
+const lines = lineMarks;
+const points = pointMarks;
 
 let browser: Browser;
 let dir: string;
