@@ -8,7 +8,7 @@
 import { TRACE } from '../defaults.js';
 import { hermite } from './hermite.js';
 import type { RawPoint } from './rawPoint.js';
-import { dot } from './workspace.js';
+import { distance, dot, segmentDistance } from './workspace.js';
 
 const SAMPLES = 8;
 
@@ -22,9 +22,9 @@ export function onTracedBranch(
     for (let i = 0; i + 1 < points.length; i++) {
       const a = points[i]!;
       const b = points[i + 1]!;
-      const h = chord(a.z, b.z);
+      const h = distance(a.z, b.z);
       const limit = tol(h);
-      if (chord(z, a.z) > 2 * h + limit) continue;
+      if (distance(z, a.z) > 2 * h + limit) continue;
       if (Math.abs(dot(t, a.t)) < TRACE.sameDirection && Math.abs(dot(t, b.t)) < TRACE.sameDirection) continue;
       hermite(a, b, h, 0, prev);
       for (let s = 1; s <= SAMPLES; s++) {
@@ -35,26 +35,4 @@ export function onTracedBranch(
     }
   }
   return false;
-}
-
-function chord(u: Float64Array, v: Float64Array): number {
-  let s = 0;
-  for (let j = 0; j < u.length; j++) s += (u[j]! - v[j]!) ** 2;
-  return Math.sqrt(s);
-}
-
-
-/** Distance from z to the segment [u, v]. */
-function segmentDistance(z: Float64Array, u: Float64Array, v: Float64Array): number {
-  let uv = 0;
-  let uz = 0;
-  for (let j = 0; j < z.length; j++) {
-    const d = v[j]! - u[j]!;
-    uv += d * d;
-    uz += d * (z[j]! - u[j]!);
-  }
-  const s = uv > 0 ? Math.min(1, Math.max(0, uz / uv)) : 0;
-  let r = 0;
-  for (let j = 0; j < z.length; j++) r += (z[j]! - u[j]! - s * (v[j]! - u[j]!)) ** 2;
-  return Math.sqrt(r);
 }

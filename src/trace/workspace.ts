@@ -40,11 +40,8 @@ export function distance(u: Float64Array, v: Float64Array): number {
   return Math.sqrt(s);
 }
 
-/**
- * Whether z lies within a quarter of |b − a| of the segment [a, b]: a point already located is
- * inside the bracket between two consecutive branch points (the quarter allows for curvature).
- */
-export function nearSegment(z: Float64Array, a: Float64Array, b: Float64Array): boolean {
+/** Euclidean distance from z to the segment [a, b]. */
+export function segmentDistance(z: Float64Array, a: Float64Array, b: Float64Array): number {
   let ab = 0;
   let az = 0;
   for (let j = 0; j < z.length; j++) {
@@ -55,5 +52,13 @@ export function nearSegment(z: Float64Array, a: Float64Array, b: Float64Array): 
   const s = ab > 0 ? Math.min(1, Math.max(0, az / ab)) : 0;
   let r = 0;
   for (let j = 0; j < z.length; j++) r += (z[j]! - a[j]! - s * (b[j]! - a[j]!)) ** 2;
-  return Math.sqrt(r) <= 0.25 * Math.sqrt(ab);
+  return Math.sqrt(r);
+}
+
+/**
+ * Whether z lies within a quarter of |b − a| of the segment [a, b]: a point already located is
+ * inside the bracket between two consecutive branch points (the quarter allows for curvature).
+ */
+export function nearSegment(z: Float64Array, a: Float64Array, b: Float64Array): boolean {
+  return segmentDistance(z, a, b) <= 0.25 * distance(a, b);
 }
