@@ -17,6 +17,7 @@ import { eventLabel } from './report/eventWords.js';
 import { formatNumber } from './report/formatNumber.js';
 import { marginSentences } from './report/marginText.js';
 import { portraitFiles, sweepFiles } from './report/outputFiles.js';
+import { loadChartRuntime } from './report/renderPage.js';
 import { equilibriaJson, equilibriaText } from './report/renderEquilibria.js';
 import { renderJson } from './report/renderJson.js';
 import { writeOutputs } from './report/writeFiles.js';
@@ -134,6 +135,9 @@ async function sweepCommand(file: string, f: SweepFlags): Promise<number> {
   }
   const progress = progressLine(opts.vary, f.progress === true);
   const running = runSweep(new URL('./sweepWorker.js', import.meta.url), model, opts, progress);
+  // Load the chart code while the worker computes (on another core); a failure shows up, with
+  // its message, when the diagram is rendered.
+  if (f.diagram !== false) loadChartRuntime().catch(() => undefined);
   const report = await running.finally(() => progress.clear());
   const dir = f.out ?? join('out', `${stem(file)}-${opts.vary}`);
   const files = await sweepFiles(report, { ...(plot !== undefined && { plot }), diagram: f.diagram !== false });
