@@ -11,6 +11,7 @@
  *
  * Lines are drawn in arclength order: `order` by point index and `detail` by run (branch + stretch of
  * equal stability, see `branchRows`), never sorted by parameter, so folds turn back as they should.
+ * Line points that cannot be seen missing are left out (thinLines.ts); report.json keeps them all.
  * Zoom and pan: an interval selection bound to the scales, on the parameter axis only, shared by
  * every panel (the parameter scale is resolved as shared).
  *
@@ -24,6 +25,7 @@ import type { UnitSpec } from 'vega-lite/types_unstable/spec/unit.js';
 import { UsageError, message } from '../errors.js';
 import type { Report } from '../types.js';
 import { branchRows, specialRows, stateField, type DiagramRow } from './diagramData.js';
+import { thinLines } from './thinLines.js';
 import { BRANCH_COLOURS, NOMINAL_COLOUR, POINT_STYLE, STABILITY_DASH } from './diagramStyle.js';
 import { EVENT_LABELS } from './eventWords.js';
 import { formatNumber } from './formatNumber.js';
@@ -83,7 +85,8 @@ export function diagramSpec(report: Report, opts: DiagramOptions = {}): TopLevel
     height: DIAGRAM_SIZE.eigenvalueHeight,
   };
   const specials = withNorm(specialRows(report), names.length, norm);
-  const branches = withNorm(branchRows(report), names.length, norm);
+  const all: Panels = [...statePanelList, eigen];
+  const branches = thinLines(withNorm(branchRows(report), names.length, norm), ['parameter', ...all.map((p) => p.field)]);
   const style = chartStyle(report, specials);
 
   const panelSpec = (panel: Panel, extra: Layer[]): LayerSpec<Field> => {
@@ -137,7 +140,6 @@ export function diagramSpec(report: Report, opts: DiagramOptions = {}): TopLevel
     encoding: { y: { datum: 0, type: 'quantitative' } },
   };
 
-  const all: Panels = [...statePanelList, eigen];
   const vconcat = [
     ...statePanelList.map((p, k) => panelSpec(p, nominalLayers(p, k === 0))),
     panelSpec(eigen, [zeroLine, ...nominalLayers(eigen, false)]),

@@ -18,7 +18,8 @@
 import { TRACE } from '../defaults.js';
 import { luFactor, luSolve, luSolveTransposed } from '../linalg/lu.js';
 import type { ExtendedSystem } from './extendedSystem.js';
-import { dot, type Workspace } from './workspace.js';
+import { dot } from '../linalg/vector.js';
+import type { Workspace } from './workspace.js';
 
 export interface BranchDirections {
   kind: 'transcritical' | 'pitchfork' | 'branch-point';

@@ -23,7 +23,8 @@ import { luFactor, luSolve } from '../linalg/lu.js';
 import { normInf } from '../linalg/norm.js';
 import type { SolveStatus } from '../types.js';
 import type { ExtendedSystem } from './extendedSystem.js';
-import { distance, type Workspace } from './workspace.js';
+import { distance } from '../linalg/vector.js';
+import type { Workspace } from './workspace.js';
 
 export interface CorrectOptions {
   absTol: number;

@@ -19,7 +19,8 @@ import { locateOnBranch, predictOnBranch, type BranchTest, type Located } from '
 import type { RawPoint } from './rawPoint.js';
 import { refineBranchPoint } from './refineBranchPoint.js';
 import { tangentAt } from './tangentAt.js';
-import { distance, type Workspace } from './workspace.js';
+import { distance } from '../linalg/vector.js';
+import type { Workspace } from './workspace.js';
 
 export function locateBranchPoint(
   ext: ExtendedSystem, work: Workspace, a: RawPoint, b: RawPoint, test: BranchTest,

@@ -18,7 +18,8 @@ import type { ExtendedSystem } from './extendedSystem.js';
 import { hermite } from './hermite.js';
 import type { RawPoint } from './rawPoint.js';
 import { tangentAt, type TangentOutcome } from './tangentAt.js';
-import { dot, type Workspace } from './workspace.js';
+import { dot } from '../linalg/vector.js';
+import type { Workspace } from './workspace.js';
 
 /** Test function at a corrected point z with unit tangent t (`ext.jx` holds f_x at z). */
 export type BranchTest = (z: Float64Array, t: Float64Array, tangent: TangentOutcome) => number;

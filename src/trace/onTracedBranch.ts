@@ -8,7 +8,7 @@
 import { TRACE } from '../defaults.js';
 import { hermite } from './hermite.js';
 import type { RawPoint } from './rawPoint.js';
-import { distance, dot, segmentDistance } from './workspace.js';
+import { distance, dot, segmentDistance } from '../linalg/vector.js';
 
 const SAMPLES = 8;
 

@@ -32,7 +32,7 @@ import { luFactor, luSolve, type LuFactors } from '../linalg/lu.js';
 import { normInf } from '../linalg/norm.js';
 import type { SolveStatus } from '../types.js';
 import type { ExtendedSystem } from './extendedSystem.js';
-import { distance } from './workspace.js';
+import { distance } from '../linalg/vector.js';
 
 export interface RefinedBranchPoint {
   status: SolveStatus;

@@ -7,7 +7,7 @@ import type { EventDescription } from './describeEvent.js';
 import type { FoundEvent } from './detectEvents.js';
 import type { ExtendedSystem } from './extendedSystem.js';
 import type { RawPoint } from './rawPoint.js';
-import { distance } from './workspace.js';
+import { distance } from '../linalg/vector.js';
 
 export interface PendingEvent {
   point: Omit<SpecialPoint, 'id'>;

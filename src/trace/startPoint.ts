@@ -7,7 +7,8 @@
 import type { ExtendedSystem } from './extendedSystem.js';
 import { rawPoint, type RawPoint } from './rawPoint.js';
 import { tangentAt } from './tangentAt.js';
-import { dot, type Workspace } from './workspace.js';
+import { dot } from '../linalg/vector.js';
+import type { Workspace } from './workspace.js';
 
 export function startPoint(
   ext: ExtendedSystem, z: Float64Array, toward: Float64Array, work: Workspace,

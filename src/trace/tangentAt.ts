@@ -12,7 +12,8 @@
  */
 import { luDeterminant, luFactor, luSolve } from '../linalg/lu.js';
 import type { ExtendedSystem } from './extendedSystem.js';
-import { dot, type Workspace } from './workspace.js';
+import { dot } from '../linalg/vector.js';
+import type { Workspace } from './workspace.js';
 
 export interface TangentOutcome {
   /** False when F_z is not finite or the bordered matrix is exactly singular. */

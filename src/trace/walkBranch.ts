@@ -21,7 +21,8 @@ import type { ExtendedSystem } from './extendedSystem.js';
 import { landOnBound } from './landOnBound.js';
 import { rawPoint, type RawPoint } from './rawPoint.js';
 import { tangentAt } from './tangentAt.js';
-import { distance, dot, type Workspace } from './workspace.js';
+import { distance, dot } from '../linalg/vector.js';
+import type { Workspace } from './workspace.js';
 
 export interface WalkContext {
   ext: ExtendedSystem;

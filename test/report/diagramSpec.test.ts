@@ -78,8 +78,10 @@ describe('diagramSpec', () => {
       expect(line.encoding.strokeDash?.scale?.domain).toEqual(['stable', 'unstable']);
       expect(line.data.name).toBe('branches');
     }
-    // Analytic: x = 0 is stable for λ < 0, x = λ for λ > 0; each has one change of stability → 9 + 1 rows each.
-    expect(s.datasets.branches).toHaveLength(20);
+    // Analytic: x = 0 is stable for λ < 0, x = λ for λ > 0; each has one change of stability, so two
+    // runs per branch. Every run is straight in (λ, x) and in the eigenvalue (±λ), so thinning keeps
+    // only its two end points: 4 runs × 2 rows.
+    expect(s.datasets.branches).toHaveLength(8);
     expect([...runsOf(s.datasets.branches).keys()]).toEqual(['0-0', '0-1', '1-0', '1-1']);
     const stroke = s.vconcat[0]!.layer.find((l) => l.mark.type === 'line')!.encoding.stroke!;
     expect(stroke.scale?.domain).toEqual(['branch 0', 'branch 1']);
