@@ -66,12 +66,19 @@ export const BLAS_THREADS = process.env.OPENBLAS_NUM_THREADS ?? '1';
 
 /** Runs bench/reference/<script> with python3 and returns its one JSON object. */
 export function runPython<T>(script: string, args: readonly (string | number)[]): T {
+  return timedPython<T>(script, args).result;
+}
+
+/** runPython, and the wall time of the whole python3 process (interpreter start-up and imports included). */
+export function timedPython<T>(script: string, args: readonly (string | number)[]): { result: T; wallSeconds: number } {
   const env = { ...process.env, OPENBLAS_NUM_THREADS: BLAS_THREADS, OMP_NUM_THREADS: BLAS_THREADS };
+  const t0 = performance.now();
   const result = spawnSync('python3', [`bench/reference/${script}`, ...args.map(String)], {
     cwd: ROOT, encoding: 'utf8', timeout: 120_000, env,
   });
+  const wallSeconds = (performance.now() - t0) / 1000;
   if (result.error) throw result.error;
   if (result.status !== 0) throw new Error(`python3 ${script} failed (${result.status}): ${result.stderr.trim()}`);
   const last = result.stdout.trim().split('\n').pop() ?? '';
-  return JSON.parse(last) as T;
+  return { result: JSON.parse(last) as T, wallSeconds };
 }

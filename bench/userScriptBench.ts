@@ -10,14 +10,25 @@
  *           bench/reference/simulateSweep.py (solve_ivp to steady state at each value), with as many
  *           evenly spaced values as our branch through lam = 0.1's stable state has points.
  *           Timed inside the scripts; interpreter start-up and imports excluded.
+ *
+ * A second table times the whole run as a user starts it, process start to exit: our command line
+ * (`node dist/cli.js sweep`, writing its files) against `python3 <script>` (interpreter start-up and
+ * the numpy/scipy imports included), median of WALL_RUNS runs each.
  */
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { loadModel } from '../src/model/loadModel.js';
 import { sweep } from '../src/sweep.js';
 import type { Trace } from '../src/types.js';
-import { BLAS_THREADS, emitFact, emitNote, emitRow, emitTitle, median, runPython, sig } from './benchOutput.js';
+import { BLAS_THREADS, emitFact, emitNote, emitRow, emitTitle, median, ROOT, runPython, sig, timedPython } from './benchOutput.js';
 import { bratuModel } from './reactionDiffusion.js';
 
 const TABLE = 'user-script';
+const WALL_TABLE = 'user-script-wall';
+const WALL_RUNS = 5;
+const CLI = join(ROOT, 'dist', 'cli.js');
 const POINTS = 20;
 const FROM = 0.1;
 const TO = 3.4;
@@ -91,4 +102,50 @@ export async function main(): Promise<void> {
   emitNote(TABLE, 'theirs/ours: Python time over our first-run time (in brackets: over our warm median); above 1 means ours is faster.');
   emitNote(TABLE, 'Ours: load + compile + equilibrium search at the start + all branches with eigenvalues, special points located and classified, report built; no files written.');
   emitNote(TABLE, 'The Python scripts find only the stable branch (a natural sweep cannot pass a fold, a simulation cannot settle on an unstable state) and locate no special points; the root script also computes eigenvalues at every value, the simulation stops when max|f| < 1e-8 (from the previous end state) or at t = 1e4.');
+  wallTable(values);
+}
+
+/** Median wall time of `run` over WALL_RUNS runs, with min and max. */
+function wall(run: () => number): { median: number; min: number; max: number } {
+  const times = Array.from({ length: WALL_RUNS }, () => run());
+  return { median: median(times), min: Math.min(...times), max: Math.max(...times) };
+}
+
+/** The whole run as a user starts it: our command line against the python3 scripts. */
+function wallTable(values: number): void {
+  emitTitle(WALL_TABLE, `The same comparison as a user runs it, process start to exit (median of ${WALL_RUNS})`);
+  if (!existsSync(CLI)) {
+    emitNote(WALL_TABLE, 'dist/cli.js is missing (run npm run build): no whole-run comparison.');
+    return;
+  }
+  const dir = mkdtempSync(join(tmpdir(), 'branchtrace-bench-'));
+  try {
+    const model = join(dir, 'bratu.yaml');
+    writeFileSync(model, bratuModel(POINTS).text);
+    const cli = (extra: readonly string[]) => wall(() => {
+      const t0 = performance.now();
+      const r = spawnSync(process.execPath, [CLI, 'sweep', model, '--vary', 'lam', '--from', String(FROM), '--to', String(TO), '--out', join(dir, 'out'), ...extra], { encoding: 'utf8' });
+      if (r.status !== 0) throw new Error(`branchtrace sweep failed (${r.status}): ${r.stderr.trim()}`);
+      return (performance.now() - t0) / 1000;
+    });
+    const python = (script: string) => wall(() => timedPython(script, [POINTS, FROM, TO, values]).wallSeconds);
+    const ours = cli(['--no-diagram']);
+    const oursDiagram = cli([]);
+    const row = (command: string, output: string, t: { median: number; min: number; max: number }, ratio: string) => emitRow(WALL_TABLE, {
+      command, output, 'median s': sig(t.median), 'min s': sig(t.min), 'max s': sig(t.max), 'theirs/ours': ratio,
+    });
+    row('branchtrace sweep --no-diagram', 'every branch, special points located; report.json, report.md, points.csv', ours, '-');
+    row('branchtrace sweep', `the same and the diagram (html, Vega-Lite spec, svg; ${POINTS + 1} panels)`, oursDiagram, '-');
+    for (const [script, output] of [
+      ['naturalSweep.py', `${values} values on the stable branch, printed`],
+      ['simulateSweep.py', `${values} values on the stable branch, printed`],
+    ] as const) {
+      const t = python(script);
+      row(`python3 ${script}`, output, t, `${sig(t.median / ours.median)} (with our diagram ${sig(t.median / oursDiagram.median)})`);
+    }
+    emitNote(WALL_TABLE, 'theirs/ours: the script\'s median wall time over ours without the diagram (in brackets: over ours with it); above 1 means ours is faster.');
+    emitNote(WALL_TABLE, 'Both sides pay their start-up here: Node and our bundle, python3 and its numpy/scipy imports (the first table leaves both out).');
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
 }
