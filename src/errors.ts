@@ -190,6 +190,9 @@ export const message = {
   traceLandFailed: (param: string, bound: number, status: string, residual: number, iterations: number) =>
     `could not place the last point exactly on ${param} = ${bound}: Newton ${status} after ` +
     `${countOf(iterations, 'iteration')} (residual ${residual.toExponential(2)})`,
+  traceHiddenCrossings: (param: string, a: number, b: number) =>
+    `between ${param} = ${a.toPrecision(8)} and ${b.toPrecision(8)} several eigenvalues cross the imaginary ` +
+    `axis together even at the smallest step (a degenerate point, e.g. a double zero eigenvalue); it is not located`,
   traceLocateFailed: (what: string, branch: number, param: string, a: number, b: number, status: string) =>
     `a ${what} on branch ${branch} between ${param} = ${a.toPrecision(8)} and ${b.toPrecision(8)} ` +
     `could not be located (${status}); it is not reported`,

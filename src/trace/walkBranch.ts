@@ -5,8 +5,9 @@
  *
  * Step control (common practice): halve ds when the corrector fails or the tangent turns by more
  * than maxTurnDegrees (keeps the predictor error, about κ·ds²/2, small against the branch
- * spacing); grow it by growFactor after a correction of at most easyIterations Newton steps;
- * clamp to [dsMin, dsMax].
+ * spacing), or when the step hides two eigenvalue crossings (hiddenCrossings.ts: the test
+ * functions would not change sign; halving stops at dsMin); grow it by growFactor after a
+ * correction of at most easyIterations Newton steps; clamp to [dsMin, dsMax].
  *
  * Stops: 'left range' (last point landed exactly on the bound, landOnBound.ts), 'closed loop'
  * (back within 2·ds of the first point, tangent aligned, after having been at least four times
@@ -18,6 +19,7 @@ import { message } from '../errors.js';
 import type { StopReason, TraceSettings } from '../types.js';
 import { correctPoint } from './correctPoint.js';
 import type { ExtendedSystem } from './extendedSystem.js';
+import { hiddenCrossings } from './hiddenCrossings.js';
 import { landOnBound } from './landOnBound.js';
 import { rawPoint, type RawPoint } from './rawPoint.js';
 import { tangentAt } from './tangentAt.js';
@@ -76,6 +78,13 @@ export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): W
       return { points, stopped: 'left range' };
     }
     const point = rawPoint(ext, z, tNew, tangent, { residual: c.residual, iterations: c.iterations, step, s: cur.s + step });
+    if (hiddenCrossings(cur.eigenvalues, point.eigenvalues)) {
+      if (ds * TRACE.shrinkFactor >= settings.dsMin) {
+        ds *= TRACE.shrinkFactor;
+        continue;
+      }
+      ctx.warnings.push(message.traceHiddenCrossings(ctx.name, cur.z[n]!, lambda));
+    }
     points.push(point);
     cur = point;
     const fromFirst = distance(z, start.z);

@@ -1,0 +1,92 @@
+/**
+ * Special points closer together than one continuation step: two simple crossings inside one step
+ * leave every sign-change test unchanged, so the walker must see them in the count of unstable
+ * eigenvalues and shorten the step until each sits in a bracket of its own.
+ */
+import { describe, expect, it } from 'vitest';
+import { compileModel } from '../../src/compile/compileModel.js';
+import { loadModel } from '../../src/model/loadModel.js';
+import { traceBranches } from '../../src/trace/traceBranches.js';
+import { traceSettings } from '../../src/trace/traceSettings.js';
+import { expectClose } from '../helpers/close.js';
+
+function system(text: string) {
+  return compileModel(loadModel(text, 'close.yaml'));
+}
+
+describe('special points inside one step', () => {
+  it('finds two pitchforks 0.001 apart on a branch traced with steps 40 times longer', () => {
+    // Analytic: x' = λx − x³, y' = (λ − ε)y − y³ with ε = 0.001. On (0, 0) the eigenvalues are λ and
+    // λ − ε: pitchforks at λ = 0 (new branch x = ±√λ) and at λ = ε (y = ±√(λ − ε)), both turning there.
+    const s = system(`
+states: { x: 0, y: 0 }
+parameters: { lam: -1, eps: 0.001 }
+equations:
+  x: lam*x - x^3
+  y: (lam - eps)*y - y^3
+`);
+    const settings = traceSettings(0, -1, 1);
+    expect(settings.dsMax).toBeGreaterThanOrEqual(0.001 * 40);
+    const trace = traceBranches(s, Float64Array.of(-1, 0.001), settings, [Float64Array.of(0, 0)]);
+    const points = trace.events.filter((e) => e.branch === 1).map((e) => [e.type, e.parameter] as const);
+    expect(points.map((p) => p[0])).toEqual(['pitchfork', 'pitchfork']);
+    expectClose(points[0]![1], 0, { abs: 1e-10 }, 'pitchfork at λ = 0 (analytic)');
+    expectClose(points[1]![1], 0.001, { rel: 1e-8 }, 'pitchfork at λ = ε (analytic)');
+    // Analytic: every equilibrium has x ∈ {0, ±√λ} and y ∈ {0, ±√(λ − ε)}. Branches: (0, 0); x = ±√λ
+    // (one branch through λ = 0, followed both ways); y = ±√(λ − ε); and, from the pitchforks at λ = ε
+    // on x = +√λ and on x = −√λ, the branches with both x and y non-zero.
+    expect(trace.branches).toHaveLength(5);
+    const onX = trace.events.filter((e) => e.branch === 2);
+    expect(onX.map((e) => e.type)).toEqual(['pitchfork', 'pitchfork']);
+    for (const e of onX) expectClose(e.parameter, 0.001, { rel: 1e-8 }, 'pitchfork at λ = ε on x = ±√λ (analytic)');
+    for (const b of trace.branches) {
+      for (const q of b.points) {
+        const [x, y] = [q.state[0]!, q.state[1]!];
+        if (Math.abs(x) > 1e-6) expectClose(x * x, q.parameter, { abs: 1e-9 }, 'x² = λ (analytic)');
+        if (Math.abs(y) > 1e-6) expectClose(y * y, q.parameter - 0.001, { abs: 1e-9 }, 'y² = λ − ε (analytic)');
+      }
+    }
+    expect(trace.warnings).toEqual([]);
+  });
+
+  it('finds two Hopf points 0.001 apart, each with its own frequency', () => {
+    // Analytic: two uncoupled oscillators, each in polar form r' = (λ − c)r − r³, θ' = ω (Hopf normal
+    // form, supercritical): on (0, 0, 0, 0) the eigenvalues are λ ± i and λ − ε ± 2i, so Hopf points
+    // at λ = 0 (ω = 1) and λ = ε (ω = 2).
+    const s = system(`
+states: { a: 0, b: 0, c: 0, d: 0 }
+parameters: { lam: -1, eps: 0.001 }
+equations:
+  a: lam*a - b - a*(a^2 + b^2)
+  b: a + lam*b - b*(a^2 + b^2)
+  c: (lam - eps)*c - 2*d - c*(c^2 + d^2)
+  d: 2*c + (lam - eps)*d - d*(c^2 + d^2)
+`);
+    const trace = traceBranches(s, Float64Array.of(-1, 0.001), traceSettings(0, -1, 1), [new Float64Array(4)]);
+    const hopf = trace.events.filter((e) => e.type === 'hopf');
+    expect(hopf).toHaveLength(2);
+    expectClose(hopf[0]!.parameter, 0, { abs: 1e-10 }, 'Hopf at λ = 0 (analytic)');
+    expectClose(hopf[1]!.parameter, 0.001, { rel: 1e-8 }, 'Hopf at λ = ε (analytic)');
+    expectClose(hopf[0]!.frequency!, 1, { rel: 1e-8 }, 'ω = 1 (analytic)');
+    expectClose(hopf[1]!.frequency!, 2, { rel: 1e-8 }, 'ω = 2 (analytic)');
+    // r' = μr − r³: the cubic term damps, so both are supercritical (Kuznetsov, 3rd ed., §3.4).
+    expect(hopf.map((e) => e.criticality)).toEqual(['supercritical', 'supercritical']);
+  });
+
+  it('says so when two crossings coincide and no step can part them, and still reaches the range end', () => {
+    // Analytic: with ε = 0 both eigenvalues of (0, 0) are λ: a double zero eigenvalue at λ = 0.
+    const s = system(`
+states: { x: 0, y: 0 }
+parameters: { lam: -1 }
+equations:
+  x: lam*x - x^3
+  y: lam*y - y^3
+`);
+    const trace = traceBranches(s, Float64Array.of(-1), traceSettings(0, -1, 1), [Float64Array.of(0, 0)]);
+    expect(trace.branches[0]!.stopped).toBe('left range');
+    expect(trace.warnings).toHaveLength(1);
+    expect(trace.warnings[0]).toMatch(/^between lam = -?\d\.\d+(e-\d+)? and -?\d\.\d+(e-\d+)? several eigenvalues cross/);
+    const [a, b] = trace.warnings[0]!.match(/-?\d\.\d+(e-\d+)?/g)!.map(Number);
+    expect(a! <= 0 && b! >= 0).toBe(true);
+  });
+});
