@@ -81,14 +81,21 @@ function progressLine(parameter: string, forced: boolean): ((p: Progress) => voi
   return Object.assign(show, { clear: () => { if (shown && tty) process.stderr.write('\r\x1b[2K'); } });
 }
 
+/** Models with at most this many states show the state of each special point in the summary. */
+const SUMMARY_STATES = 4;
+
 function sweepSummary(report: Report, written: readonly string[]): string {
   const lines = [
     `${report.model.title ?? report.model.file}: ${report.branches.length} branch${report.branches.length === 1 ? '' : 'es'}, ` +
       `${report.branches.reduce((s, b) => s + b.points.length, 0)} points, ${report.events.length} special point` +
       `${report.events.length === 1 ? '' : 's'}${report.interrupted ? ' (interrupted: partial results)' : ''}`,
   ];
+  // The state tells apart points at one parameter value (the two symmetric Hopf points of a
+  // pitchfork's branch); spelled out for small models, where it fits on the line.
+  const names = report.model.states.map((s) => s.name);
   for (const e of report.events) {
-    lines.push(`  ${eventLabel(e.type, e.criticality)} at ${report.parameter} = ${formatNumber(e.parameter, 8)} ` +
+    const state = names.length <= SUMMARY_STATES ? `, ${names.map((n) => `${n} = ${formatNumber(e.state[n] ?? Number.NaN, 5)}`).join(', ')}` : '';
+    lines.push(`  ${e.id}. ${eventLabel(e.type, e.criticality)} at ${report.parameter} = ${formatNumber(e.parameter, 8)}${state} ` +
       `(branch ${e.branch}): ${e.meaning}`);
   }
   if (report.margin !== null) lines.push('', ...marginSentences(report.margin, report.events));

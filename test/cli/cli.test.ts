@@ -130,6 +130,18 @@ describe('branchtrace sweep', () => {
     expect(ok.status).toBe(0);
   });
 
+  it('the summary numbers the special points and gives their state, so that two at one value differ', () => {
+    // Lorenz (1963): the pitchfork at rho = 1 from the origin, and on the pair C± = (±√(b(ρ−1)), ±√(b(ρ−1)), ρ−1)
+    // one subcritical Hopf point each at rho = σ(σ+b+3)/(σ−b−1) = 470/19 for σ = 10, b = 8/3.
+    const r = runCli(['sweep', 'models/lorenz-convection.yaml', '--vary', 'rho', '--from', '0', '--to', '30', '--out', tempDir('lorenz'), '--no-diagram']);
+    expect(r.status, r.stderr).toBe(0);
+    const hopf = r.stdout.split('\n').filter((l) => /Hopf/.test(l) && /branch \d+\)/.test(l));
+    expect(hopf).toHaveLength(2);
+    const xy = Math.sqrt((8 / 3) * (470 / 19 - 1)).toPrecision(4); // 7.956
+    expect(hopf[0]).toMatch(new RegExp(`^  2\\. Hopf \\(subcritical\\) at rho = 24\\.736842, X = ${xy}, Y = ${xy}, Z = 23\\.737 \\(branch 2\\)`));
+    expect(hopf[1]).toMatch(new RegExp(`^  3\\. Hopf \\(subcritical\\) at rho = 24\\.736842, X = −${xy}, Y = −${xy}, Z = 23\\.737 \\(branch 2\\)`));
+  });
+
   it('--warn-margin prints a warning in the summary when the nearest special point is close', () => {
     const dir = tempDir('warn');
     const r = runCli(['sweep', writeModel(S_CURVE), '--vary', 'lambda', '--from', '-1', '--to', '1', '--out', dir, '--warn-margin', '0.5']);
