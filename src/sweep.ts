@@ -6,7 +6,7 @@
  *         ─traceBranches→ Trace: branches, special points  (src/trace/, src/detect/)
  *         ─buildReport→ Report (margin included)           (src/report/)
  *
- * Rendering and writing files are the caller's business (src/cli.ts, or a library user); this
+ * Rendering and writing files are the caller's business (src/commands.ts, or a library user); this
  * function touches neither the file system nor the terminal. It returns the intermediate results too.
  */
 import type { CompiledSystem } from './compile/compileModel.js';

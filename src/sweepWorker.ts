@@ -4,7 +4,7 @@
  * (runSweep.ts) keeps its event loop free: it sets a flag in shared memory on SIGINT, which the
  * trace checks at every point and then returns what it computed, marked as interrupted.
  */
-import { parentPort, workerData } from 'node:worker_threads';
+import { parentPort } from 'node:worker_threads';
 import { BranchtraceError } from './errors.js';
 import { sweep, type SweepOptions } from './sweep.js';
 import type { Model, Report } from './types.js';
@@ -46,7 +46,8 @@ function run(job: SweepJob, post: (m: WorkerMessage) => void): void {
   }
 }
 
+// The job comes as the first message (the worker may start before the model is read: runSweep.ts).
 if (parentPort !== null) {
   const port = parentPort;
-  run(workerData as SweepJob, (m) => port.postMessage(m));
+  port.once('message', (job: SweepJob) => run(job, (m) => port.postMessage(m)));
 }
