@@ -16,7 +16,7 @@ import type { PortraitWindow } from './portrait/plane.js';
 import { eventLabel } from './report/eventWords.js';
 import { formatNumber } from './report/formatNumber.js';
 import { marginSentences } from './report/marginText.js';
-import { portraitFiles, sweepFiles } from './report/outputFiles.js';
+import { diagramFiles, portraitFiles } from './report/outputFiles.js';
 import { loadChartRuntime } from './report/renderPage.js';
 import { equilibriaJson, equilibriaText } from './report/renderEquilibria.js';
 import { renderJson } from './report/renderJson.js';
@@ -145,11 +145,13 @@ async function sweepCommand(file: string, f: SweepFlags, worker: SweepWorker): P
   // Load the chart code while the worker computes (on another core); a failure shows up, with
   // its message, when the diagram is rendered.
   if (f.diagram !== false) loadChartRuntime().catch(() => undefined);
-  const report = await running.finally(() => progress.clear());
+  const { report, reportFiles } = await running.finally(() => progress.clear());
   const dir = f.out ?? join('out', `${stem(file)}-${opts.vary}`);
-  const files = await sweepFiles(report, { ...(plot !== undefined && { plot }), diagram: f.diagram !== false });
+  // The diagram renders here while the worker renders the report files.
+  const diagram = f.diagram === false ? [] : await diagramFiles(report, plot);
+  const files = [...await reportFiles, ...diagram];
   const written = await writeOutputs(dir, files);
-  process.stdout.write(f.json === true ? renderJson(report) : sweepSummary(report, written));
+  process.stdout.write(f.json === true ? files.find((x) => x.name === 'report.json')!.content : sweepSummary(report, written));
   const margin = report.margin;
   if (margin?.status === 'warn' && f.json === true) process.stderr.write(`warning: ${marginSentences(margin, report.events).at(-1)}\n`);
   if (report.interrupted) return 130;

@@ -2,6 +2,8 @@
  * The CLI side of a sweep: start the worker (sweepWorker.ts), hand it the job, relay progress to a
  * callback, turn the first Ctrl-C into a cooperative stop (results kept, marked as interrupted) and
  * a second one into an immediate exit, and rethrow the worker's errors as the same kind of error here.
+ * The worker sends the report, then renders report.json, report.md and points.csv while this thread
+ * renders the diagram.
  *
  * Starting a worker takes about 45 ms, the longest single wait of a short sweep, so cli.ts starts it
  * before the rest of the command line loads (startSweepWorker); it waits, unreferenced (it does not
@@ -11,6 +13,7 @@ import { Worker } from 'node:worker_threads';
 import { BranchtraceError } from './errors.js';
 import type { SweepOptions } from './sweep.js';
 import type { SweepJob, WorkerMessage } from './sweepWorker.js';
+import type { OutputFile } from './report/writeFiles.js';
 import type { Model, Report } from './types.js';
 
 /** An error the worker raised, with its exit status. */
@@ -34,9 +37,15 @@ export function startSweepWorker(file: URL): SweepWorker {
   return worker;
 }
 
+/** What a sweep gives back: the report at once, its files (report.json, .md, .csv) when the worker has rendered them. */
+export interface SweepOutcome {
+  report: Report;
+  reportFiles: Promise<OutputFile[]>;
+}
+
 export function runSweep(
   worker: SweepWorker, model: Model, opts: SweepOptions, onProgress: (p: Progress) => void,
-): Promise<Report> {
+): Promise<SweepOutcome> {
   const stop = new SharedArrayBuffer(4);
   const flag = new Int32Array(stop);
   const job: SweepJob = { model, opts, stop };
@@ -47,24 +56,40 @@ export function runSweep(
     Atomics.store(flag, 0, 1);
   };
   process.on('SIGINT', onSigint);
-  return new Promise<Report>((resolve, reject) => {
-    let settled = false;
+  let filesSettle: { resolve: (f: OutputFile[]) => void; reject: (e: unknown) => void } | undefined;
+  const reportFiles = new Promise<OutputFile[]>((resolve, reject) => {
+    filesSettle = { resolve, reject };
+  });
+  reportFiles.catch(() => undefined); // rejected only after the report came; whoever awaits it sees the error
+  const outcome = new Promise<SweepOutcome>((resolve, reject) => {
+    let stage: 'running' | 'report' | 'finished' = 'running';
+    // Before the report, a failure rejects the sweep; after it, the files.
+    const fail = (err: unknown) => {
+      if (stage === 'running') reject(err);
+      else if (stage === 'report') filesSettle!.reject(err);
+      stage = 'finished';
+      void worker.terminate();
+    };
     worker.on('message', (m: WorkerMessage) => {
       if (m.kind === 'progress') return onProgress(m);
-      settled = true;
-      if (m.kind === 'done') resolve(m.report);
-      else if (m.kind === 'error') reject(new RelayedError(m.message, m.exitCode));
-      else reject(Object.assign(new Error(m.message), { stack: m.stack }));
+      if (m.kind === 'done') {
+        stage = 'report';
+        process.off('SIGINT', onSigint);
+        return resolve({ report: m.report, reportFiles });
+      }
+      if (m.kind === 'files') {
+        stage = 'finished';
+        filesSettle!.resolve(m.files);
+        return void worker.terminate();
+      }
+      fail(m.kind === 'error' ? new RelayedError(m.message, m.exitCode) : Object.assign(new Error(m.message), { stack: m.stack }));
     });
-    worker.on('error', (err) => {
-      settled = true;
-      reject(err);
-    });
+    worker.on('error', fail);
     worker.on('exit', (code) => {
-      if (!settled) reject(new Error(`the sweep worker stopped with exit code ${code} before sending a result`));
+      if (stage !== 'finished') fail(new Error(`the sweep worker stopped with exit code ${code} before sending its results`));
     });
-  }).finally(() => {
+  });
+  return outcome.finally(() => {
     process.off('SIGINT', onSigint);
-    void worker.terminate();
   });
 }

@@ -6,6 +6,8 @@
  */
 import { parentPort } from 'node:worker_threads';
 import { BranchtraceError } from './errors.js';
+import { reportFiles } from './report/outputFiles.js';
+import type { OutputFile } from './report/writeFiles.js';
 import { sweep, type SweepOptions } from './sweep.js';
 import type { Model, Report } from './types.js';
 
@@ -20,6 +22,7 @@ export interface SweepJob {
 export type WorkerMessage =
   | { kind: 'progress'; branch: number; points: number; parameter: number; branchesDone: number }
   | { kind: 'done'; report: Report }
+  | { kind: 'files'; files: OutputFile[] }
   | { kind: 'error'; message: string; exitCode: number }
   | { kind: 'internal'; message: string; stack: string };
 
@@ -40,6 +43,8 @@ function run(job: SweepJob, post: (m: WorkerMessage) => void): void {
       },
     });
     post({ kind: 'done', report });
+    // Then the report files, while the main thread renders the diagram (two cores at work).
+    post({ kind: 'files', files: reportFiles(report) });
   } catch (err) {
     if (err instanceof BranchtraceError) post({ kind: 'error', message: err.message, exitCode: err.exitCode });
     else post({ kind: 'internal', message: String((err as Error)?.message ?? err), stack: String((err as Error)?.stack ?? '') });

@@ -24,15 +24,22 @@ export interface DiagramChoice {
 }
 
 export async function sweepFiles(report: Report, choice: DiagramChoice = {}): Promise<OutputFile[]> {
-  const files = [
+  return [...reportFiles(report), ...(choice.diagram === false ? [] : await diagramFiles(report, choice.plot))];
+}
+
+/** report.json, report.md and points.csv. */
+export function reportFiles(report: Report): OutputFile[] {
+  return [
     { name: 'report.json', content: renderJson(report) },
     { name: 'report.md', content: renderMarkdown(report) },
     { name: 'points.csv', content: renderCsv(report) },
   ];
-  if (choice.diagram === false) return files;
-  const page = await renderPage(diagramSpec(report, choice.plot === undefined ? {} : { plot: choice.plot }), diagramText(report));
+}
+
+/** diagram.html, diagram.vl.json and diagram.svg. */
+export async function diagramFiles(report: Report, plot?: DiagramChoice['plot']): Promise<OutputFile[]> {
+  const page = await renderPage(diagramSpec(report, plot === undefined ? {} : { plot }), diagramText(report));
   return [
-    ...files,
     { name: 'diagram.html', content: page.html },
     { name: 'diagram.vl.json', content: page.vegaLite },
     { name: 'diagram.svg', content: page.svg },
