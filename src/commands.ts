@@ -19,7 +19,6 @@ import { marginSentences } from './report/marginText.js';
 import { diagramFiles, portraitFiles } from './report/outputFiles.js';
 import { loadChartRuntime } from './report/renderPage.js';
 import { equilibriaJson, equilibriaText } from './report/renderEquilibria.js';
-import { renderJson } from './report/renderJson.js';
 import { writeOutputs } from './report/writeFiles.js';
 import { runSweep, type Progress, type SweepWorker } from './runSweep.js';
 import type { Report } from './types.js';
