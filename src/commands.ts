@@ -16,6 +16,7 @@ import type { PortraitWindow } from './portrait/plane.js';
 import { eventLabel } from './report/eventWords.js';
 import { formatNumber } from './report/formatNumber.js';
 import { marginSentences } from './report/marginText.js';
+import { defaultPlot } from './report/diagramSpec.js';
 import { diagramFiles, portraitFiles } from './report/outputFiles.js';
 import { loadChartRuntime } from './report/renderPage.js';
 import { equilibriaJson, equilibriaText } from './report/renderEquilibria.js';
@@ -83,7 +84,7 @@ function progressLine(parameter: string, forced: boolean): ((p: Progress) => voi
 /** Models with at most this many states show the state of each special point in the summary. */
 const SUMMARY_STATES = 4;
 
-function sweepSummary(report: Report, written: readonly string[]): string {
+function sweepSummary(report: Report, written: readonly string[], normByDefault: boolean): string {
   const lines = [
     `${report.model.title ?? report.model.file}: ${report.branches.length} branch${report.branches.length === 1 ? '' : 'es'}, ` +
       `${report.branches.reduce((s, b) => s + b.points.length, 0)} points, ${report.events.length} special point` +
@@ -99,7 +100,11 @@ function sweepSummary(report: Report, written: readonly string[]): string {
   }
   if (report.margin !== null) lines.push('', ...marginSentences(report.margin, report.events));
   for (const w of report.warnings) lines.push(`warning: ${w}`);
-  lines.push('', `wrote ${written.join(', ')}`, '', report.caution);
+  lines.push('', `wrote ${written.join(', ')}`);
+  if (normByDefault) {
+    lines.push(`The diagram draws the norm of the state (the model has ${report.model.states.length} states); --plot names the states to draw instead.`);
+  }
+  lines.push('', report.caution);
   return lines.join('\n') + '\n';
 }
 
@@ -150,7 +155,8 @@ async function sweepCommand(file: string, f: SweepFlags, worker: SweepWorker): P
   const diagram = f.diagram === false ? [] : await diagramFiles(report, plot);
   const files = [...await reportFiles, ...diagram];
   const written = await writeOutputs(dir, files);
-  process.stdout.write(f.json === true ? files.find((x) => x.name === 'report.json')!.content : sweepSummary(report, written));
+  const normByDefault = f.diagram !== false && plot === undefined && defaultPlot(model.states.length) === 'norm';
+  process.stdout.write(f.json === true ? files.find((x) => x.name === 'report.json')!.content : sweepSummary(report, written, normByDefault));
   const margin = report.margin;
   if (margin?.status === 'warn' && f.json === true) process.stderr.write(`warning: ${marginSentences(margin, report.events).at(-1)}\n`);
   if (report.interrupted) return 130;

@@ -34,8 +34,23 @@ import { wrapText } from './wrapText.js';
 import { valueWithUnit, withUnit } from './withUnit.js';
 
 export interface DiagramOptions {
-  /** State names to plot (one panel each, in the given order), or 'norm' for one panel of ‖x‖₂. Default: every state. */
+  /**
+   * State names to plot (one panel each, in the given order), or 'norm' for one panel of ‖x‖₂.
+   * Default (defaultPlot): every state, or the norm for a model of more than DIAGRAM_STATE_PANELS states.
+   */
   plot?: readonly string[] | 'norm';
+}
+
+/**
+ * Most panels the default diagram draws one per state; a larger model (a discretised PDE with a
+ * hundred states, say) gets one panel of the norm instead, which stays readable and renders in a
+ * fraction of the time. Common practice: a screen's worth of panels.
+ */
+export const DIAGRAM_STATE_PANELS = 8;
+
+/** What the diagram plots when no choice is given. */
+export function defaultPlot(stateCount: number): 'norm' | undefined {
+  return stateCount > DIAGRAM_STATE_PANELS ? 'norm' : undefined;
 }
 
 /** Common practice: panels about half a laptop screen wide, the eigenvalue panel shorter. */
@@ -78,15 +93,23 @@ type Panels = readonly Panel[];
 
 export function diagramSpec(report: Report, opts: DiagramOptions = {}): TopLevelSpec {
   const names = report.model.states.map((s) => s.name);
-  const norm = opts.plot === 'norm';
-  const statePanelList = opts.plot === 'norm' ? [normPanel(report)] : statePanels(report, opts.plot);
+  const plot = opts.plot ?? defaultPlot(names.length);
+  const norm = plot === 'norm';
+  const statePanelList = plot === 'norm' ? [normPanel(report)] : statePanels(report, plot);
   const eigen: Panel = {
     key: DIAGRAM_MARKS.eigenvaluePanel, field: 'maxRealPart', title: 'largest real part of the eigenvalues',
     height: DIAGRAM_SIZE.eigenvalueHeight,
   };
-  const specials = withNorm(specialRows(report), names.length, norm);
   const all: Panels = [...statePanelList, eigen];
-  const branches = thinLines(withNorm(branchRows(report), names.length, norm), ['parameter', ...all.map((p) => p.field)]);
+  // Tooltips name the plotted states, or every state of a model small enough to list them.
+  const tooltipStates = Array.isArray(plot) ? statePanelList.map((p) => p.field)
+    : names.length <= DIAGRAM_STATE_PANELS ? names.map((_, i) => stateField(i)) : [];
+  const specials = withNorm(specialRows(report), names.length, norm);
+  // Line rows carry only what the lines draw (a model of a hundred states would otherwise put
+  // every state into every row of diagram.vl.json and of the page).
+  const lineFields = ['parameter', ...all.map((p) => p.field)];
+  const branches = thinLines(withNorm(branchRows(report), names.length, norm), lineFields)
+    .map((r) => pick(r, ['branch', 'run', 'index', 'stability', ...lineFields]));
   const style = chartStyle(report, specials);
 
   const panelSpec = (panel: Panel, extra: Layer[]): LayerSpec<Field> => {
@@ -110,7 +133,7 @@ export function diagramSpec(report: Report, opts: DiagramOptions = {}): TopLevel
         name: DIAGRAM_MARKS.points(panel.key),
         data: { name: 'special' },
         mark: { type: 'point', filled: true, clip: true, size: 120, opacity: 1, stroke: '#ffffff', strokeWidth: 1.2 },
-        encoding: { x: style.x, y, shape: style.shape, fill: style.fill, tooltip: pointTooltip(report, norm) },
+        encoding: { x: style.x, y, shape: style.shape, fill: style.fill, tooltip: pointTooltip(report, tooltipStates, norm) },
       });
     }
     return { width: DIAGRAM_SIZE.width, height: panel.height, layer: layers };
@@ -271,7 +294,14 @@ function withNorm(rows: DiagramRow[], n: number, norm: boolean): DiagramRow[] {
   });
 }
 
-function pointTooltip(report: Report, norm: boolean) {
+/** The row with only the given fields. */
+function pick(row: DiagramRow, fields: readonly string[]): DiagramRow {
+  const out: DiagramRow = {};
+  for (const f of fields) if (f in row) out[f] = row[f]!;
+  return out;
+}
+
+function pointTooltip(report: Report, states: readonly string[], norm: boolean) {
   // Six significant digits with trailing zeros dropped ("2", not "2.00000").
   const q = (field: string, title: string) => ({ field, title, type: 'quantitative' as const, format: '.6~g' });
   const t = (field: string, title: string) => ({ field, title, type: 'nominal' as const });
@@ -279,7 +309,7 @@ function pointTooltip(report: Report, norm: boolean) {
     t('type', 'special point'),
     t('branch', 'on'),
     q('parameter', withUnit(report.parameter, report.unit)),
-    ...report.model.states.map((s, i) => q(stateField(i), withUnit(s.name, s.unit))),
+    ...report.model.states.flatMap((s, i) => (states.includes(stateField(i)) ? [q(stateField(i), withUnit(s.name, s.unit))] : [])),
     ...(norm ? [q(NORM_FIELD, 'norm of the state')] : []),
     t('eigenvalues', 'eigenvalues'),
     t('coefficient', 'coefficient'),

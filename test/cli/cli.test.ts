@@ -142,6 +142,30 @@ describe('branchtrace sweep', () => {
     expect(hopf[1]).toMatch(new RegExp(`^  3\\. Hopf \\(subcritical\\) at rho = 24\\.736842, X = −${xy}, Y = −${xy}, Z = 23\\.737 \\(branch 2\\)`));
   });
 
+  it('draws the norm of the state by default for a model of more than eight states, and the chosen states with --plot', () => {
+    // Nine uncoupled states x_i' = p − x_i: the equilibrium is x_i = p, so ‖x‖ = 3|p| (analytic).
+    const states = Array.from({ length: 9 }, (_, i) => `x${i + 1}`);
+    const nine = writeModel([
+      'title: nine uncoupled states', 'about: demo only (invented numbers)',
+      'states:', ...states.map((x) => `  ${x}: 0`),
+      'parameters:', '  p: 1',
+      'equations:', ...states.map((x) => `  ${x}: p - ${x}`),
+    ].join('\n'));
+    type Spec = { vconcat: { layer: { mark: { type: string }; encoding: { y?: { field?: string } } }[] }[]; datasets: { branches: Record<string, number>[] } };
+    const panels = (spec: Spec) => spec.vconcat.map((v) => v.layer.find((l) => l.mark.type === 'line')!.encoding.y!.field);
+    const dir = tempDir('nine');
+    const r = runCli(['sweep', nine, '--vary', 'p', '--from', '-1', '--to', '2', '--out', dir]);
+    expect(r.status, r.stderr).toBe(0);
+    expect(r.stdout).toMatch(/The diagram draws the norm of the state \(the model has 9 states\); --plot names the states to draw instead\./);
+    const spec = JSON.parse(readFileSync(join(dir, 'diagram.vl.json'), 'utf8')) as Spec;
+    expect(panels(spec)).toEqual(['norm', 'maxRealPart']);
+    for (const row of spec.datasets.branches) expect(Math.abs(row['norm']! - 3 * Math.abs(row['parameter']!))).toBeLessThan(1e-9);
+    const chosen = runCli(['sweep', nine, '--vary', 'p', '--from', '-1', '--to', '2', '--out', dir, '--plot', 'x1,x9']);
+    expect(chosen.status, chosen.stderr).toBe(0);
+    expect(chosen.stdout).not.toMatch(/draws the norm/);
+    expect(panels(JSON.parse(readFileSync(join(dir, 'diagram.vl.json'), 'utf8')) as Spec)).toEqual(['v0', 'v8', 'maxRealPart']);
+  });
+
   it('--warn-margin prints a warning in the summary when the nearest special point is close', () => {
     const dir = tempDir('warn');
     const r = runCli(['sweep', writeModel(S_CURVE), '--vary', 'lambda', '--from', '-1', '--to', '1', '--out', dir, '--warn-margin', '0.5']);

@@ -162,10 +162,15 @@ describe('diagramSpec', () => {
   it('plots only the chosen states, or the Euclidean norm of the state', () => {
     const only = view(diagramSpec(sCurve(), { plot: ['y'] }));
     expect(only.vconcat.map((p) => p.layer.find((l) => l.mark.type === 'line')!.name)).toEqual(['bt_state1_lines', 'bt_eigenvalues_lines']);
-    const norm = view(diagramSpec(sCurve(), { plot: 'norm' }));
+    const report = sCurve();
+    const norm = view(diagramSpec(report, { plot: 'norm' }));
     expect(norm.vconcat.map((p) => p.layer.find((l) => l.mark.type === 'line')!.encoding.y!.field)).toEqual(['norm', 'maxRealPart']);
-    // Analytic: on the S-curve y = x, so ‖(x, y)‖ = √2·|x|.
-    for (const r of norm.datasets.branches) expectClose(r.norm as number, Math.SQRT2 * Math.abs(r.v0 as number), { rel: 1e-15 }, 'norm');
+    // Analytic: on the S-curve y = x, so ‖(x, y)‖ = √2·|x|. Line rows carry only what the lines draw.
+    for (const r of norm.datasets.branches) {
+      expect(r.v0).toBeUndefined();
+      const x = report.branches[0]!.points[r.index as number]!.state['x']!;
+      expectClose(r.norm as number, Math.SQRT2 * Math.abs(x), { rel: 1e-15 }, 'norm');
+    }
     expectClose(norm.datasets.special[0]!.norm as number, Math.SQRT2 * FOLD_X, { rel: 1e-15 }, 'norm at the fold');
     expect(() => diagramSpec(sCurve(), { plot: ['z'] })).toThrow(new UsageError(message.unknownState('z', ['x', 'y'])));
   });
