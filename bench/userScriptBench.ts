@@ -155,7 +155,7 @@ function wallTable(values: number): void {
       command, output, 'median s': sig(t.median), 'min s': sig(t.min), 'max s': sig(t.max), 'theirs/ours': ratio,
     });
     row('branchtrace sweep --no-diagram', 'every branch, special points located; report.json, report.md, points.csv', ours, '-');
-    row('branchtrace sweep', `the same and the diagram (html, Vega-Lite spec, svg; ${POINTS + 1} panels)`, oursDiagram, '-');
+    row('branchtrace sweep', `the same and the diagram (html, Vega-Lite spec, svg; the norm of the state, the default for ${POINTS} states)`, oursDiagram, '-');
     for (const [script, output] of [
       ['naturalSweep.py', `${values} values on the stable branch, printed`],
       ['simulateSweep.py', `${values} values on the stable branch, printed`],
