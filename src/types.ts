@@ -286,6 +286,18 @@ export interface ReportPoint {
   state: Record<string, number>;
   stable: boolean;
   maxRealPart: number;
+  /** How sure the point is: ‖f‖∞ after the corrector, its Newton iterations, and the scaled arclength step that led here (0 at the first point). */
+  residual: number;
+  iterations: number;
+  step: number;
+}
+
+/** The test function whose sign change revealed a special point, at the two branch points around it. */
+export interface ReportTest {
+  /** In words: which quantity changes sign. */
+  quantity: string;
+  before: number;
+  after: number;
 }
 
 export interface ReportBranch {
@@ -308,6 +320,7 @@ export interface ReportEvent {
   meaning: string;
   residual: number;
   iterations: number;
+  test: ReportTest;
   foldCoefficient?: number;
   lyapunov?: number;
   criticality?: Criticality;

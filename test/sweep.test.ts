@@ -22,6 +22,30 @@ function toggleFold(uLo: number, uHi: number): number {
 }
 
 describe('sweep()', () => {
+  it('gives every point and special point its own diagnostics: residual, iterations, step, test-function values', () => {
+    // Lorenz (1963) from rho = 0 to 30: the pitchfork at rho = 1 (det of the bordered Jacobian),
+    // and two subcritical Hopf points at rho = 470/19 (real part of the critical pair) (analytic).
+    const model = readModelFile('models/lorenz-convection.yaml');
+    const { report } = sweep(model, { vary: 'rho', from: 0, to: 30 });
+    for (const b of report.branches) {
+      b.points.forEach((q, k) => {
+        expect(q.residual).toBeLessThanOrEqual(report.settings.absTol);
+        expect(q.iterations).toBeGreaterThanOrEqual(0);
+        expect(q.iterations).toBeLessThanOrEqual(report.settings.maxIter);
+        if (k === 0) return expect(q.step).toBe(0);
+        // The step is scaled arclength: at least the parameter change, which is unscaled.
+        expect(q.step).toBeGreaterThanOrEqual(Math.abs(q.parameter - b.points[k - 1]!.parameter) * (1 - 1e-12));
+      });
+    }
+    expect(report.events.map((e) => e.type)).toEqual(['pitchfork', 'hopf', 'hopf']);
+    for (const e of report.events) {
+      // The located point lies where the test function changes sign between its two neighbours.
+      expect(Math.sign(e.test.before) * Math.sign(e.test.after)).toBe(-1);
+    }
+    expect(report.events[0]!.test.quantity).toMatch(/^determinant of the bordered Jacobian/);
+    expect(report.events[1]!.test.quantity).toBe('real part of the critical complex eigenvalue pair');
+  });
+
   it('finds the far side of the toggle switch S-curve from the equilibria at the nominal value and the range end', () => {
     // From α1 = 1 only the low-u state exists, and its branch stays low up to α1 = 20; the upper
     // branch and its fold (analytic, toggleFold) are reached only from the other starts.

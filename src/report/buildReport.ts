@@ -18,6 +18,15 @@ export interface ReportOptions {
   operatingState?: Float64Array;
 }
 
+/** What each test function is (src/trace/detectEvents.ts), in words. */
+const TEST_QUANTITY: Record<SpecialPoint['type'], string> = {
+  fold: 'parameter component of the unit tangent',
+  hopf: 'real part of the critical complex eigenvalue pair',
+  'branch-point': 'determinant of the bordered Jacobian [f_x f_p; tangent] (scaled)',
+  transcritical: 'determinant of the bordered Jacobian [f_x f_p; tangent] (scaled)',
+  pitchfork: 'determinant of the bordered Jacobian [f_x f_p; tangent] (scaled)',
+};
+
 /** Trace → Report: plain JSON with names instead of indices, stability intervals, meanings and the margin. */
 export function buildReport(trace: Trace, info: ModelInfo, opts: ReportOptions): Report {
   const names = info.states.map((s) => s.name);
@@ -59,6 +68,9 @@ function reportBranch(branch: Branch, events: readonly SpecialPoint[], names: re
       state: stateRecord(p.state, names),
       stable: p.stable,
       maxRealPart: p.maxRealPart,
+      residual: p.residual,
+      iterations: p.iterations,
+      step: p.step,
     })),
     stability: stabilityIntervals(branch, events),
   };
@@ -82,6 +94,7 @@ function reportEvent(e: SpecialPoint, names: readonly string[], nearStable: bool
     meaning: eventMeaning(e.type, e.criticality, nearStable),
     residual: e.residual,
     iterations: e.iterations,
+    test: { quantity: TEST_QUANTITY[e.type], before: e.testBefore, after: e.testAfter },
   };
   if (e.foldCoefficient !== undefined) out.foldCoefficient = e.foldCoefficient;
   if (e.lyapunov !== undefined) out.lyapunov = e.lyapunov;

@@ -15,7 +15,7 @@ const KEY_ORDER = [
   'start', 'value', 'unit', 'about', 'states', 'parameters', 'range', 'state', 'branch', 'stable', 'from', 'to',
   'unstableCount', 'settings', 'parameterIndex', 'ds', 'dsMin', 'dsMax', 'maxPoints', 'absTol', 'maxIter',
   'maxBranches', 'stopped', 'origin', 'points', 'maxRealPart', 'stability', 'branches', 'events', 'eigenvalues', 're',
-  'im', 'meaning', 'residual', 'iterations', 'foldCoefficient', 'lyapunov', 'criticality', 'frequency', 'period',
+  'im', 'meaning', 'residual', 'iterations', 'step', 'test', 'quantity', 'before', 'after', 'foldCoefficient', 'lyapunov', 'criticality', 'frequency', 'period',
   'newBranches', 'margin', 'operatingStable', 'operatingUnstableCount', 'below', 'above', 'distance', 'relative', 'nearestRelative', 'status', 'warnMargin',
   'failMargin', 'warnings', 'interrupted', 'caution',
 ];

@@ -133,6 +133,10 @@ describe('renderJson', () => {
     expect(renderJson(shuffled)).toBe(renderJson(report));
     expect(Object.keys(JSON.parse(renderJson(report)) as object).slice(0, 3)).toEqual(['tool', 'version', 'model']);
     expect(Object.keys((JSON.parse(renderJson(report)) as Report).branches[0]!.points[0]!))
-      .toEqual(['index', 'parameter', 'state', 'stable', 'maxRealPart']);
+      .toEqual(['index', 'parameter', 'state', 'stable', 'maxRealPart', 'residual', 'iterations', 'step']);
+    expect(Object.keys((JSON.parse(renderJson(report)) as Report).events[0]!).slice(0, 11)).toEqual([
+      'id', 'type', 'parameter', 'state', 'branch', 'eigenvalues', 'meaning', 'residual', 'iterations', 'test', 'foldCoefficient',
+    ]);
+    expect(Object.keys((JSON.parse(renderJson(report)) as Report).events[0]!.test)).toEqual(['quantity', 'before', 'after']);
   });
 });
