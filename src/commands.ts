@@ -229,7 +229,7 @@ function program(sweepWorker: () => SweepWorker): Command {
     .option('--max-points <N>', 'point budget per branch (default 2000)')
     .option('--warn-margin <F>', 'warn when the nearest special point is closer than this fraction of the nominal value (default 0.1)')
     .option('--fail-margin <F>', 'exit with status 3 when it is closer than this fraction (default 0: never)')
-    .option('--plot <STATES>', 'states to draw, comma-separated, or "norm" (default: every state)')
+    .option('--plot <STATES>', 'states to draw, comma-separated, or "norm" (default: every state; the norm for more than eight states)')
     .option('--no-diagram', 'write only the report files, not diagram.html/.vl.json/.svg (faster, for CI gates)')
     .option('--progress', 'print progress lines on stderr even when it is not a terminal')
     .option('--json', 'print report.json to stdout instead of the summary')
