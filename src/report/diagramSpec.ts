@@ -42,9 +42,9 @@ export interface DiagramOptions {
 }
 
 /**
- * Most panels the default diagram draws one per state; a larger model (a discretised PDE with a
- * hundred states, say) gets one panel of the norm instead, which stays readable and renders in a
- * fraction of the time. Common practice: a screen's worth of panels.
+ * The default diagram has one panel per state for models of up to this many states; a larger model
+ * (a discretised PDE with a hundred states, say) gets one panel of the norm instead, which stays
+ * readable and renders in a fraction of the time. Common practice: a screen's worth of panels.
  */
 export const DIAGRAM_STATE_PANELS = 8;
 
