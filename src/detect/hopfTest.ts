@@ -17,7 +17,7 @@
  *     the sign without changing that count; two real unstable eigenvalues that merge into a complex
  *     pair change the count without flipping the sign. Neither is reported.
  *  2. locate: `criticalPair` at P0 (else P1) gives the frequency ω of the crossing pair; the root
- *     is located along the branch on the real part of the complex eigenvalue nearest ω
+ *     is located along the branch on the real part of the complex eigenvalue nearest iω
  *     (src/trace/pairRealPart.ts), which is smooth there, not on hopfTest. The bracket is dropped
  *     unless that real part changes sign between P0 and P1.
  * src/trace/describeEvent.ts then computes the first Lyapunov coefficient at the located point

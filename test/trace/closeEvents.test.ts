@@ -73,6 +73,27 @@ equations:
     expect(hopf.map((e) => e.criticality)).toEqual(['supercritical', 'supercritical']);
   });
 
+  it('follows the crossing pair, not a pair further from the axis whose frequency comes closer, across a long step', () => {
+    // Analytic: on the origin the eigenvalues are λ ± i(1 + 2λ) and −0.3 ± i(1 − λ/2): the first pair
+    // crosses at λ = 0 with ω = 1 (Hopf normal form r' = λr − r³: supercritical, Kuznetsov 3rd ed.
+    // §3.4). Across a step from λa < 0 to λb > 0 the second pair's frequency at λb is nearer 1 + 2λa
+    // than the first pair's own: |−λb/2 − 2λa| < |2λb − 2λa|.
+    const s = system(`
+states: { a: 0, b: 0, c: 0, d: 0 }
+parameters: { lam: -1 }
+equations:
+  a: lam*a - (1 + 2*lam)*b - a*(a^2 + b^2)
+  b: (1 + 2*lam)*a + lam*b - b*(a^2 + b^2)
+  c: -0.3*c - (1 - lam/2)*d
+  d: (1 - lam/2)*c - 0.3*d
+`);
+    const trace = traceBranches(s, Float64Array.of(-1), traceSettings(0, -1, 1), [new Float64Array(4)]);
+    expect(trace.events.map((e) => e.type)).toEqual(['hopf']);
+    expectClose(trace.events[0]!.parameter, 0, { abs: 1e-10 }, 'Hopf at λ = 0 (analytic)');
+    expectClose(trace.events[0]!.frequency!, 1, { rel: 1e-8 }, 'ω = 1 (analytic)');
+    expect(trace.events[0]!.criticality).toBe('supercritical');
+  });
+
   it('says so when two crossings coincide and no step can part them, and still reaches the range end', () => {
     // Analytic: with ε = 0 both eigenvalues of (0, 0) are λ: a double zero eigenvalue at λ = 0.
     const s = system(`
