@@ -16,8 +16,11 @@
  *     eigenvalues with positive real part (`complexUnstableCount`) changes. A neutral saddle flips
  *     the sign without changing that count; two real unstable eigenvalues that merge into a complex
  *     pair change the count without flipping the sign. Neither is reported.
- *  2. locate: `criticalPair` at P0 (else P1) gives the frequency ω of the crossing pair; the root
- *     is located along the branch on the real part of the complex eigenvalue nearest iω
+ *  2. locate: `crossingPair` matches each complex eigenvalue at P0 with the nearest one at P1 and
+ *     takes a matched pair whose real part changes sign (a pair nearer the axis that does not cross
+ *     is passed over; without such a match, `criticalPair` at P0, else P1); ω is the mean of its
+ *     frequencies at P0 and P1. The root is located along the branch on the real part of the
+ *     complex eigenvalue nearest iω
  *     (src/trace/pairRealPart.ts), which is smooth there, not on hopfTest. The bracket is dropped
  *     unless that real part changes sign between P0 and P1.
  * src/trace/describeEvent.ts then computes the first Lyapunov coefficient at the located point
@@ -58,6 +61,32 @@ export function criticalPair(eigs: readonly Eigenvalue[], tol: number): Eigenval
     if (e.im > tol && (best === null || Math.abs(e.re) < Math.abs(best.re))) best = e;
   }
   return best;
+}
+
+/**
+ * The frequency of the complex pair that crosses the imaginary axis between two consecutive points
+ * (step 2 of the file comment): each eigenvalue with Im > tol before is matched with the nearest one
+ * with Im > tol after; of the matches whose real parts have opposite signs, the one nearest the
+ * axis before. Null when no match crosses.
+ */
+export function crossingFrequency(before: readonly Eigenvalue[], after: readonly Eigenvalue[], tol: number): number | null {
+  let best: { distance: number; omega: number } | null = null;
+  for (const v of before) {
+    if (!(v.im > tol)) continue;
+    let match: Eigenvalue | null = null;
+    let gap = Infinity;
+    for (const w of after) {
+      if (!(w.im > tol)) continue;
+      const d = Math.hypot(w.re - v.re, w.im - v.im);
+      if (d < gap) {
+        gap = d;
+        match = w;
+      }
+    }
+    if (match === null || !(v.re * match.re < 0)) continue;
+    if (best === null || Math.abs(v.re) < best.distance) best = { distance: Math.abs(v.re), omega: (v.im + match.im) / 2 };
+  }
+  return best === null ? null : best.omega;
 }
 
 /** The detection rule of step 1 in the file comment, for consecutive branch points. */

@@ -8,14 +8,14 @@
  *                 zero, as at a start on a fold, counts once);
  *   Hopf          the bialternate-product sign change together with a change in the number of
  *                 unstable complex eigenvalues (hopfBetween, src/detect/hopfTest.ts: a neutral
- *                 saddle flips the sign only), located on the real part of the critical pair
- *                 (pairRealPart.ts).
+ *                 saddle flips the sign only), located on the real part of the pair that
+ *                 crosses (crossingFrequency, then pairRealPart.ts).
  */
 import { IMAG_TOL } from '../defaults.js';
 import { eigenvalues } from '../linalg/eig.js';
 import type { Eigenvalue, EventType } from '../types.js';
 import type { ExtendedSystem } from './extendedSystem.js';
-import { criticalPair, hopfBetween } from '../detect/hopfTest.js';
+import { criticalPair, crossingFrequency, hopfBetween } from '../detect/hopfTest.js';
 import { pairRealPart } from './pairRealPart.js';
 import { locateBranchPoint } from './locateBranchPoint.js';
 import { locateOnBranch, type BranchTest, type Located } from './locateOnBranch.js';
@@ -74,9 +74,9 @@ export function detectEvents(
     }
     const imagTol = IMAG_TOL * (1 + Math.max(size(a.eigenvalues), size(b.eigenvalues)));
     if (hopfBetween(a.eigenvalues, b.eigenvalues, imagTol)) {
-      const pair = criticalPair(a.eigenvalues, imagTol) ?? criticalPair(b.eigenvalues, imagTol);
-      if (pair === null) continue;
-      const omega = pair.im;
+      const omega = crossingFrequency(a.eigenvalues, b.eigenvalues, imagTol)
+        ?? (criticalPair(a.eigenvalues, imagTol) ?? criticalPair(b.eigenvalues, imagTol))?.im;
+      if (omega === undefined) continue;
       const gA = pairRealPart(a.eigenvalues, omega);
       const gB = pairRealPart(b.eigenvalues, omega);
       if (!(gA * gB < 0)) continue;

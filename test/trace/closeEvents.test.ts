@@ -94,6 +94,26 @@ equations:
     expect(trace.events[0]!.criticality).toBe('supercritical');
   });
 
+  it('locates the pair that crosses, not a pair that stays nearer the axis without crossing', () => {
+    // Analytic: on the origin the eigenvalues are λ ± i and −0.001 ± 2i. Only the first pair crosses
+    // (at λ = 0, ω = 1; r' = λr − r³: supercritical); the second stays at real part −0.001, nearer
+    // the axis than the first at the start of the step across λ = 0.
+    const s = system(`
+states: { a: 0, b: 0, c: 0, d: 0 }
+parameters: { lam: -1 }
+equations:
+  a: lam*a - b - a*(a^2 + b^2)
+  b: a + lam*b - b*(a^2 + b^2)
+  c: -0.001*c - 2*d
+  d: 2*c - 0.001*d
+`);
+    const trace = traceBranches(s, Float64Array.of(-1), traceSettings(0, -1, 1), [new Float64Array(4)]);
+    expect(trace.events.map((e) => e.type)).toEqual(['hopf']);
+    expectClose(trace.events[0]!.parameter, 0, { abs: 1e-10 }, 'Hopf at λ = 0 (analytic)');
+    expectClose(trace.events[0]!.frequency!, 1, { rel: 1e-8 }, 'ω = 1 (analytic)');
+    expect(trace.events[0]!.criticality).toBe('supercritical');
+  });
+
   it('says so when two crossings coincide and no step can part them, and still reaches the range end', () => {
     // Analytic: with ε = 0 both eigenvalues of (0, 0) are λ: a double zero eigenvalue at λ = 0.
     const s = system(`
