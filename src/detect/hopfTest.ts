@@ -12,10 +12,12 @@
  *
  * How src/trace/detectEvents.ts uses these between consecutive branch points P0, P1 (eigenvalues
  * e0, e1):
- *  1. detect: `hopfBetween(e0, e1, tol)` — hopfTest changes sign AND the number of complex
- *     eigenvalues with positive real part (`complexUnstableCount`) changes. A neutral saddle flips
- *     the sign without changing that count; two real unstable eigenvalues that merge into a complex
- *     pair change the count without flipping the sign. Neither is reported.
+ *  1. detect: `hopfBetween(e0, e1, tol)` — the number of complex eigenvalues with positive real
+ *     part (`complexUnstableCount`) changes AND hopfTest changes sign or a complex pair is seen to
+ *     cross (`crossingFrequency`). A neutral saddle flips the sign without changing that count; two
+ *     real unstable eigenvalues that merge into a complex pair change the count without flipping the
+ *     sign or crossing. Neither is reported. (A neutral saddle inside the same step as a Hopf point
+ *     cancels the sign change; the crossing pair still shows it.)
  *  2. locate: `crossingPair` matches each complex eigenvalue at P0 with the nearest one at P1 and
  *     takes a matched pair whose real part changes sign (a pair nearer the axis that does not cross
  *     is passed over; without such a match, `criticalPair` at P0, else P1); ω is the mean of its
@@ -91,6 +93,7 @@ export function crossingFrequency(before: readonly Eigenvalue[], after: readonly
 
 /** The detection rule of step 1 in the file comment, for consecutive branch points. */
 export function hopfBetween(before: readonly Eigenvalue[], after: readonly Eigenvalue[], tol: number): boolean {
+  if (complexUnstableCount(before, tol) === complexUnstableCount(after, tol)) return false;
   const flips = Math.sign(hopfTest(before)) !== Math.sign(hopfTest(after));
-  return flips && complexUnstableCount(before, tol) !== complexUnstableCount(after, tol);
+  return flips || crossingFrequency(before, after, tol) !== null;
 }

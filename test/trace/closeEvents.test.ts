@@ -114,6 +114,25 @@ equations:
     expect(trace.events[0]!.criticality).toBe('supercritical');
   });
 
+  it('finds a Hopf point that shares its step with a neutral saddle', () => {
+    // Analytic: on the origin the eigenvalues are λ ± i (Hopf at λ = 0, ω = 1, supercritical as above)
+    // and the real pair 1, λ − 1.005, whose sum crosses 0 at λ = 0.005 (a neutral saddle, not a Hopf
+    // point). Both flip the sign of the bialternate product: within one step the flips cancel.
+    const s = system(`
+states: { a: 0, b: 0, x: 0, y: 0 }
+parameters: { lam: -1 }
+equations:
+  a: lam*a - b - a*(a^2 + b^2)
+  b: a + lam*b - b*(a^2 + b^2)
+  x: x
+  y: (lam - 1.005)*y
+`);
+    const trace = traceBranches(s, Float64Array.of(-1), traceSettings(0, -1, 1), [new Float64Array(4)]);
+    expect(trace.events.map((e) => e.type)).toEqual(['hopf']);
+    expectClose(trace.events[0]!.parameter, 0, { abs: 1e-10 }, 'Hopf at λ = 0 (analytic)');
+    expectClose(trace.events[0]!.frequency!, 1, { rel: 1e-8 }, 'ω = 1 (analytic)');
+  });
+
   it('says so when two crossings coincide and no step can part them, and still reaches the range end', () => {
     // Analytic: with ε = 0 both eigenvalues of (0, 0) are λ: a double zero eigenvalue at λ = 0.
     const s = system(`
