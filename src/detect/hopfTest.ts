@@ -18,7 +18,7 @@
  *     real unstable eigenvalues that merge into a complex pair change the count without flipping the
  *     sign or crossing. Neither is reported. (A neutral saddle inside the same step as a Hopf point
  *     cancels the sign change; the crossing pair still shows it.)
- *  2. locate: `crossingPair` matches each complex eigenvalue at P0 with the nearest one at P1 and
+ *  2. locate: `crossingFrequency` matches each complex eigenvalue at P0 with the nearest one at P1 and
  *     takes a matched pair whose real part changes sign (a pair nearer the axis that does not cross
  *     is passed over; without such a match, `criticalPair` at P0, else P1); ω is the mean of its
  *     frequencies at P0 and P1. The root is located along the branch on the real part of the

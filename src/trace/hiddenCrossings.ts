@@ -5,8 +5,8 @@
  * unstable eigenvalues still tells: one real crossing changes it by 1, one complex pair by 2 (with the
  * count of unstable complex eigenvalues). So a step is too long when the count changes by 3 or more,
  * or by 2 while the unstable complex count stays (two real crossings). A complex pair turning into two
- * real eigenvalues on one side of the axis changes neither count. Common practice: eigenvalue
- * counting as a check on test functions (Govaerts 2000, §4.3).
+ * real eigenvalues on one side of the axis leaves the unstable count as it is. Common practice:
+ * counting eigenvalues as a check on the test functions.
  */
 import { IMAG_TOL, TRACE } from '../defaults.js';
 import type { Eigenvalue } from '../types.js';
