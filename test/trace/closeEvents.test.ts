@@ -69,14 +69,14 @@ equations:
     expectClose(hopf[1]!.parameter, 0.001, { rel: 1e-8 }, 'Hopf at λ = ε (analytic)');
     expectClose(hopf[0]!.frequency!, 1, { rel: 1e-8 }, 'ω = 1 (analytic)');
     expectClose(hopf[1]!.frequency!, 2, { rel: 1e-8 }, 'ω = 2 (analytic)');
-    // r' = μr − r³: the cubic term damps, so both are supercritical (Kuznetsov, 3rd ed., §3.4).
+    // r' = μr − r³: the cubic term damps, so both are supercritical (Kuznetsov, 3rd ed., §3.4, section from memory).
     expect(hopf.map((e) => e.criticality)).toEqual(['supercritical', 'supercritical']);
   });
 
   it('follows the crossing pair, not a pair further from the axis whose frequency comes closer, across a long step', () => {
     // Analytic: on the origin the eigenvalues are λ ± i(1 + 2λ) and −0.3 ± i(1 − λ/2): the first pair
     // crosses at λ = 0 with ω = 1 (Hopf normal form r' = λr − r³: supercritical, Kuznetsov 3rd ed.
-    // §3.4). Across a step from λa < 0 to λb > 0 the second pair's frequency at λb is nearer 1 + 2λa
+    // §3.4, section from memory). Across a step from λa < 0 to λb > 0 the second pair's frequency at λb is nearer 1 + 2λa
     // than the first pair's own: |−λb/2 − 2λa| < |2λb − 2λa|.
     const s = system(`
 states: { a: 0, b: 0, c: 0, d: 0 }
