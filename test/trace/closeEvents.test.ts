@@ -3,6 +3,7 @@
  * leave every sign-change test unchanged, so the walker must see them in the count of unstable
  * eigenvalues and shorten the step until each sits in a bracket of its own.
  */
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { compileModel } from '../../src/compile/compileModel.js';
 import { loadModel } from '../../src/model/loadModel.js';
@@ -148,5 +149,55 @@ equations:
     expect(trace.warnings[0]).toMatch(/^between lam = -?\d\.\d+(e-\d+)? and -?\d\.\d+(e-\d+)? several eigenvalues cross/);
     const [a, b] = trace.warnings[0]!.match(/-?\d\.\d+(e-\d+)?/g)!.map(Number);
     expect(a! <= 0 && b! >= 0).toBe(true);
+  });
+
+  it('finds every Hopf point of a random set of oscillators beside lightly damped modes, each at its value and frequency', () => {
+    // Analytic: oscillator j, r' = (λ − c_j)r − r³ in polar form with frequency w_j + s_j·λ, has a
+    // supercritical Hopf point at λ = c_j with ω = w_j + s_j·c_j; a damped mode −δ ± iν never crosses.
+    // Frequencies move with λ and lie close to each other, and damped modes sit near the axis: the cases
+    // in which matching eigenvalues across a step matters.
+    const oscillator = fc.record({
+      c: fc.double({ min: -0.8, max: 0.8, noNaN: true }),
+      w: fc.double({ min: 1.2, max: 3, noNaN: true }),
+      s: fc.double({ min: -1, max: 1, noNaN: true }),
+    });
+    const damped = fc.record({ delta: fc.double({ min: 5e-4, max: 0.5, noNaN: true }), nu: fc.double({ min: 0.5, max: 3, noNaN: true }) });
+    fc.assert(fc.property(
+      fc.array(oscillator, { minLength: 1, maxLength: 3 }), fc.array(damped, { maxLength: 2 }), fc.boolean(),
+      (oscillators, modes, reverse) => {
+        const cs = oscillators.map((o) => o.c).sort((a, b) => a - b);
+        fc.pre(cs.every((c, k) => k === 0 || c - cs[k - 1]! > 1e-3)); // distinct crossings
+        const lines: string[] = [];
+        const states: string[] = [];
+        const n = (x: number) => x.toPrecision(17);
+        oscillators.forEach((o, j) => {
+          const [a, b] = [`a${j}`, `b${j}`];
+          const mu = `(lam - ${n(o.c)})`;
+          const om = `(${n(o.w)} + ${n(o.s)}*lam)`;
+          states.push(a, b);
+          lines.push(`  ${a}: ${mu}*${a} - ${om}*${b} - ${a}*(${a}^2 + ${b}^2)`, `  ${b}: ${om}*${a} + ${mu}*${b} - ${b}*(${a}^2 + ${b}^2)`);
+        });
+        modes.forEach((m, j) => {
+          const [c, d] = [`c${j}`, `d${j}`];
+          states.push(c, d);
+          lines.push(`  ${c}: -${n(m.delta)}*${c} - ${n(m.nu)}*${d}`, `  ${d}: ${n(m.nu)}*${c} - ${n(m.delta)}*${d}`);
+        });
+        const model = system(['states:', ...states.map((x) => `  ${x}: 0`), 'parameters: { lam: -1 }', 'equations:', ...lines].join('\n'));
+        const [from, to] = reverse ? [1, -1] : [-1, 1];
+        const trace = traceBranches(model, Float64Array.of(from), traceSettings(0, from, to), [new Float64Array(states.length)]);
+        const found = trace.events.map((e) => {
+          expect(e.type).toBe('hopf');
+          expect(e.criticality).toBe('supercritical');
+          return e;
+        }).sort((a, b) => a.parameter - b.parameter);
+        const expected = [...oscillators].sort((a, b) => a.c - b.c);
+        expect(found).toHaveLength(expected.length);
+        found.forEach((e, k) => {
+          const o = expected[k]!;
+          expectClose(e.parameter, o.c, { abs: 1e-9 }, 'Hopf at λ = c (analytic)');
+          expectClose(e.frequency!, o.w + o.s * o.c, { rel: 1e-7 }, 'ω = w + s·c (analytic)');
+        });
+      },
+    ), { seed: 27_182, numRuns: 40 });
   });
 });
