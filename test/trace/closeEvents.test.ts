@@ -200,4 +200,29 @@ equations:
       },
     ), { seed: 27_182, numRuns: 40 });
   });
+
+  it('finds every branch point of random uncoupled modes on the trivial branch, each of its kind at its value', () => {
+    // Analytic: mode j, x' = (λ − d_j)x − x³ (pitchfork at λ = d_j) or x' = (λ − d_j)x − x² (transcritical
+    // at λ = d_j); on the trivial branch x = 0 the eigenvalues are λ − d_j, one crossing per mode.
+    // Crossings a little apart, often closer than one step (the largest step here is 0.04).
+    const gap = fc.double({ min: 2e-3, max: 0.06, noNaN: true });
+    fc.assert(fc.property(
+      fc.double({ min: -0.7, max: 0.5, noNaN: true }), fc.array(gap, { maxLength: 2 }), fc.array(fc.boolean(), { minLength: 3, maxLength: 3 }), fc.boolean(),
+      (first, gaps, cubic, reverse) => {
+        const modes = [first, ...gaps.map((_, k) => first + gaps.slice(0, k + 1).reduce((a, b) => a + b, 0))]
+          .map((d, j) => ({ d, cubic: cubic[j]! }));
+        const states = modes.map((_, j) => `x${j}`);
+        const model = system([
+          'states:', ...states.map((x) => `  ${x}: 0`), 'parameters: { lam: -1 }', 'equations:',
+          ...modes.map((m, j) => `  x${j}: (lam - ${m.d.toPrecision(17)})*x${j} - x${j}^${m.cubic ? 3 : 2}`),
+        ].join('\n'));
+        const [from, to] = reverse ? [1, -1] : [-1, 1];
+        const trace = traceBranches(model, Float64Array.of(from), traceSettings(0, from, to), [new Float64Array(states.length)]);
+        const onTrivial = trace.events.filter((e) => e.branch === 1).sort((a, b) => a.parameter - b.parameter);
+        const expected = [...modes].sort((a, b) => a.d - b.d);
+        expect(onTrivial.map((e) => e.type)).toEqual(expected.map((m) => (m.cubic ? 'pitchfork' : 'transcritical')));
+        onTrivial.forEach((e, k) => expectClose(e.parameter, expected[k]!.d, { abs: 1e-9 }, 'branch point at λ = d (analytic)'));
+      },
+    ), { seed: 16_180, numRuns: 30 });
+  });
 });
