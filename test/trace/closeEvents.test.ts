@@ -225,4 +225,64 @@ equations:
       },
     ), { seed: 16_180, numRuns: 30 });
   });
+
+  it('finds the Hopf points of oscillators mixed by a random rotation of the state, at their values and frequencies', () => {
+    // Analytic: with x = Q·y (Q orthogonal), x' = Q·g(Qᵀx) has the eigenvalues of y' = g(y): the
+    // oscillators and the damped mode of the test above, now coupled in every state of x.
+    fc.assert(fc.property(
+      fc.array(fc.record({ c: fc.double({ min: -0.8, max: 0.8, noNaN: true }), w: fc.double({ min: 1.2, max: 3, noNaN: true }) }), { minLength: 1, maxLength: 2 }),
+      fc.double({ min: 1e-3, max: 0.3, noNaN: true }),
+      fc.array(fc.double({ min: 0, max: 2 * Math.PI, noNaN: true }), { minLength: 15, maxLength: 15 }),
+      (oscillators, delta, angles) => {
+        fc.pre(oscillators.length < 2 || Math.abs(oscillators[0]!.c - oscillators[1]!.c) > 1e-3);
+        const n = 2 * oscillators.length + 2;
+        const q = rotation(angles, n);
+        const num = (x: number) => x.toPrecision(17);
+        const y = (k: number) => `y${k}`;
+        const g: string[] = [];
+        oscillators.forEach((o, j) => {
+          const [a, b] = [y(2 * j), y(2 * j + 1)];
+          g.push(`(lam - ${num(o.c)})*${a} - ${num(o.w)}*${b} - ${a}*(${a}^2 + ${b}^2)`);
+          g.push(`${num(o.w)}*${a} + (lam - ${num(o.c)})*${b} - ${b}*(${a}^2 + ${b}^2)`);
+        });
+        g.push(`-${num(delta)}*${y(n - 2)} - 2*${y(n - 1)}`, `2*${y(n - 2)} - ${num(delta)}*${y(n - 1)}`);
+        const text = [
+          'states:', ...Array.from({ length: n }, (_, i) => `  x${i}: 0`),
+          'parameters: { lam: -1 }',
+          'definitions:',
+          ...Array.from({ length: n }, (_, k) => `  ${y(k)}: ${Array.from({ length: n }, (_, i) => `(${num(q[i]![k]!)})*x${i}`).join(' + ')}`),
+          ...g.map((e, k) => `  g${k}: ${e}`),
+          'equations:',
+          ...Array.from({ length: n }, (_, i) => `  x${i}: ${Array.from({ length: n }, (_, k) => `(${num(q[i]![k]!)})*g${k}`).join(' + ')}`),
+        ].join('\n');
+        const trace = traceBranches(system(text), Float64Array.of(-1), traceSettings(0, -1, 1), [new Float64Array(n)]);
+        const found = [...trace.events].sort((a, b) => a.parameter - b.parameter);
+        const expected = [...oscillators].sort((a, b) => a.c - b.c);
+        expect(found.map((e) => e.type)).toEqual(expected.map(() => 'hopf'));
+        found.forEach((e, k) => {
+          expectClose(e.parameter, expected[k]!.c, { abs: 1e-9 }, 'Hopf at λ = c (analytic)');
+          expectClose(e.frequency!, expected[k]!.w, { rel: 1e-7 }, 'ω = w (analytic)');
+          expect(e.criticality).toBe('supercritical');
+        });
+      },
+    ), { seed: 14_142, numRuns: 25 });
+  });
 });
+
+/** The product of the Givens rotations by angles[0], angles[1], … in the planes (0,1), (0,2), …, (n−2,n−1). */
+function rotation(angles: readonly number[], n: number): number[][] {
+  const q: number[][] = Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => (i === j ? 1 : 0)));
+  let k = 0;
+  for (let a = 0; a < n; a++) {
+    for (let b = a + 1; b < n; b++) {
+      const [c, s] = [Math.cos(angles[k]!), Math.sin(angles[k]!)];
+      k++;
+      for (const row of q) {
+        const [x, y] = [row[a]!, row[b]!];
+        row[a] = c * x - s * y;
+        row[b] = s * x + c * y;
+      }
+    }
+  }
+  return q;
+}
