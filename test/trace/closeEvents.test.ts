@@ -15,6 +15,15 @@ function system(text: string) {
   return compileModel(loadModel(text, 'close.yaml'));
 }
 
+/** Traced over λ from −1 to 1 from the origin (four states): exactly one special point, a supercritical Hopf point at λ = 0 with ω = 1. */
+function expectOneHopfAtZero(s: ReturnType<typeof system>): void {
+  const trace = traceBranches(s, Float64Array.of(-1), traceSettings(0, -1, 1), [new Float64Array(4)]);
+  expect(trace.events.map((e) => e.type)).toEqual(['hopf']);
+  expectClose(trace.events[0]!.parameter, 0, { abs: 1e-10 }, 'Hopf at λ = 0 (analytic)');
+  expectClose(trace.events[0]!.frequency!, 1, { rel: 1e-8 }, 'ω = 1 (analytic)');
+  expect(trace.events[0]!.criticality).toBe('supercritical');
+}
+
 describe('special points inside one step', () => {
   it('finds two pitchforks 0.001 apart on a branch traced with steps 40 times longer', () => {
     // Analytic: x' = λx − x³, y' = (λ − ε)y − y³ with ε = 0.001. On (0, 0) the eigenvalues are λ and
@@ -88,11 +97,7 @@ equations:
   c: -0.3*c - (1 - lam/2)*d
   d: (1 - lam/2)*c - 0.3*d
 `);
-    const trace = traceBranches(s, Float64Array.of(-1), traceSettings(0, -1, 1), [new Float64Array(4)]);
-    expect(trace.events.map((e) => e.type)).toEqual(['hopf']);
-    expectClose(trace.events[0]!.parameter, 0, { abs: 1e-10 }, 'Hopf at λ = 0 (analytic)');
-    expectClose(trace.events[0]!.frequency!, 1, { rel: 1e-8 }, 'ω = 1 (analytic)');
-    expect(trace.events[0]!.criticality).toBe('supercritical');
+    expectOneHopfAtZero(s);
   });
 
   it('locates the pair that crosses, not a pair that stays nearer the axis without crossing', () => {
@@ -108,11 +113,7 @@ equations:
   c: -0.001*c - 2*d
   d: 2*c - 0.001*d
 `);
-    const trace = traceBranches(s, Float64Array.of(-1), traceSettings(0, -1, 1), [new Float64Array(4)]);
-    expect(trace.events.map((e) => e.type)).toEqual(['hopf']);
-    expectClose(trace.events[0]!.parameter, 0, { abs: 1e-10 }, 'Hopf at λ = 0 (analytic)');
-    expectClose(trace.events[0]!.frequency!, 1, { rel: 1e-8 }, 'ω = 1 (analytic)');
-    expect(trace.events[0]!.criticality).toBe('supercritical');
+    expectOneHopfAtZero(s);
   });
 
   it('finds a Hopf point that shares its step with a neutral saddle', () => {
@@ -128,10 +129,7 @@ equations:
   x: x
   y: (lam - 1.005)*y
 `);
-    const trace = traceBranches(s, Float64Array.of(-1), traceSettings(0, -1, 1), [new Float64Array(4)]);
-    expect(trace.events.map((e) => e.type)).toEqual(['hopf']);
-    expectClose(trace.events[0]!.parameter, 0, { abs: 1e-10 }, 'Hopf at λ = 0 (analytic)');
-    expectClose(trace.events[0]!.frequency!, 1, { rel: 1e-8 }, 'ω = 1 (analytic)');
+    expectOneHopfAtZero(s);
   });
 
   it('says so when two crossings coincide and no step can part them, and still reaches the range end', () => {
