@@ -3,7 +3,9 @@
  * locates each one (locateOnBranch.ts; branch points by locateBranchPoint.ts). Test functions
  * (Kuznetsov, Elements of Applied Bifurcation Theory, 3rd ed., §10.2; Allgower & Georg 1990, §8.1):
  *   branch point  τ_bp = det [F_z; tᵀ]   (checked first: at a simple branch point t_λ need not vanish,
- *                                         and where a branch turns at one, t_λ changes sign too);
+ *                                         and where a branch turns at one, t_λ changes sign too; a
+ *                                         fold in the same bracket is kept when it lies apart from it:
+ *                                         foldBesideBranchPoint);
  *   fold          τ_f  = t_λ, the parameter component of the unit tangent (foldBetween: an exact
  *                 zero, as at a start on a fold, counts once);
  *   Hopf          the bialternate-product sign change together with a change in the number of
@@ -21,6 +23,10 @@ import { locateBranchPoint } from './locateBranchPoint.js';
 import { locateOnBranch, type BranchTest, type Located } from './locateOnBranch.js';
 import type { RawPoint } from './rawPoint.js';
 import type { Workspace } from './workspace.js';
+import { distance } from '../linalg/vector.js';
+
+/** A zero of t_λ this close to a branch point in the same bracket (fraction of the bracket) is that branch point's own turn. Common practice. */
+const SAME_BRACKET_SHARE = 1e-3;
 
 export interface FoundEvent {
   type: Extract<EventType, 'fold' | 'hopf' | 'branch-point'>;
@@ -61,6 +67,25 @@ export function detectEvents(
     }
     events.push({ type, between: [i, i + 1], testBefore: gA, testAfter: gB, located, eigenvalues: eigenvalues(ext.jx, n) });
   };
+  const foldTest: BranchTest = (_z, t, tangent) => (tangent.ok ? t[n]! : NaN);
+  /**
+   * t_λ changes sign in a bracket that holds a branch point too. Where the branch turns at the branch
+   * point itself (a pitchfork seen from its new branch), the zero of t_λ is that point; otherwise a
+   * fold shares the step with it, and is located and kept when it lies apart from the branch point
+   * (more than SAME_BRACKET_SHARE of the bracket). Failing to locate it here says nothing new: the
+   * bracket next to a branch point is ill-conditioned, and the branch point is reported anyway.
+   */
+  const foldBesideBranchPoint = (i: number, branchPoint: FoundEvent): void => {
+    const a = points[i]!;
+    const b = points[i + 1]!;
+    if (opts.skip?.('fold', a, b) === true) return;
+    const located = locateOnBranch(ext, work, a, b, foldTest, a.t[n]!, b.t[n]!, { ...opts, tol: opts.tol(a.z[n]!) });
+    if (located.status !== 'converged' && located.status !== 'max-iter') return;
+    if (distance(located.z, branchPoint.located.z) <= SAME_BRACKET_SHARE * distance(a.z, b.z)) return;
+    events.push({
+      type: 'fold', between: [i, i + 1], testBefore: a.t[n]!, testAfter: b.t[n]!, located, eigenvalues: eigenvalues(ext.jx, n),
+    });
+  };
   for (let i = 0; i + 1 < points.length; i++) {
     const a = points[i]!;
     const b = points[i + 1]!;
@@ -68,9 +93,12 @@ export function detectEvents(
       const ref = Math.max(a.detLog, b.detLog);
       const bp: BranchTest = (_z, _t, tangent) =>
         tangent.singular ? 0 : tangent.ok ? tangent.detSign * Math.exp(tangent.detLog - ref) : NaN;
+      const before = events.length;
       record('branch-point', i, bp, a.detSign * Math.exp(a.detLog - ref), b.detSign * Math.exp(b.detLog - ref));
+      const branchPoint = events.length > before ? events.at(-1)! : undefined;
+      if (branchPoint !== undefined && foldBetween(points, i, n)) foldBesideBranchPoint(i, branchPoint);
     } else if (foldBetween(points, i, n)) {
-      record('fold', i, (_z, t, tangent) => (tangent.ok ? t[n]! : NaN), a.t[n]!, b.t[n]!);
+      record('fold', i, foldTest, a.t[n]!, b.t[n]!);
     }
     const imagTol = IMAG_TOL * (1 + Math.max(size(a.eigenvalues), size(b.eigenvalues)));
     if (hopfBetween(a.eigenvalues, b.eigenvalues, imagTol)) {

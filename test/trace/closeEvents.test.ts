@@ -132,6 +132,30 @@ equations:
     expectOneHopfAtZero(s);
   });
 
+  it('finds a fold that shares its step with a branch point, and no fold where a new branch turns at one', () => {
+    // Analytic: x' = λ − x², y' = (x − x0)·y − y³. On y = 0 the branch λ = x² folds at (λ, x) = (0, 0)
+    // and has a pitchfork where x = x0 (λ = x0²), 0.002 to 0.01 from the fold along the branch, well
+    // inside one step (0.04). The new branch y² = x − x0, λ = x², turns at its pitchfork (dλ/dy = 0)
+    // and, for x0 < 0, folds again at x = 0 (λ = 0) with y = ±√(−x0).
+    for (const x0 of [-0.005, 0.002, 0.01]) {
+      const s = system(`
+states: { x: 1, y: 0 }
+parameters: { lam: 1 }
+equations:
+  x: lam - x^2
+  y: (x - (${x0}))*y - y^3
+`);
+      const trace = traceBranches(s, Float64Array.of(1), traceSettings(0, 1, -1), [Float64Array.of(1, 0)]);
+      const onFirst = trace.events.filter((e) => e.branch === 1).sort((a, b) => a.parameter - b.parameter);
+      expect(onFirst.map((e) => e.type)).toEqual(['fold', 'pitchfork']);
+      expectClose(onFirst[0]!.parameter, 0, { abs: 1e-12 }, 'fold at λ = 0 (analytic)');
+      expectClose(onFirst[1]!.parameter, x0 * x0, { abs: 1e-12 }, 'pitchfork at λ = x0² (analytic)');
+      const onNew = trace.events.filter((e) => e.branch === 2);
+      expect(onNew.map((e) => e.type)).toEqual(x0 < 0 ? ['fold', 'fold'] : []);
+      for (const e of onNew) expectClose(e.parameter, 0, { abs: 1e-12 }, 'fold of the new branch at λ = 0 (analytic)');
+    }
+  });
+
   it('says so when two crossings coincide and no step can part them, and still reaches the range end', () => {
     // Analytic: with ε = 0 both eigenvalues of (0, 0) are λ: a double zero eigenvalue at λ = 0.
     const s = system(`
