@@ -137,13 +137,13 @@ equations:
     // and has a pitchfork where x = x0 (λ = x0²), 0.002 to 0.01 from the fold along the branch, well
     // inside one step (0.04). The new branch y² = x − x0, λ = x², turns at its pitchfork (dλ/dy = 0)
     // and, for x0 < 0, folds again at x = 0 (λ = 0) with y = ±√(−x0).
-    for (const x0 of [-0.005, 0.002, 0.01]) {
+    const check = (x0: number): void => {
       const s = system(`
 states: { x: 1, y: 0 }
 parameters: { lam: 1 }
 equations:
   x: lam - x^2
-  y: (x - (${x0}))*y - y^3
+  y: (x - (${x0.toPrecision(17)}))*y - y^3
 `);
       const trace = traceBranches(s, Float64Array.of(1), traceSettings(0, 1, -1), [Float64Array.of(1, 0)]);
       const onFirst = trace.events.filter((e) => e.branch === 1).sort((a, b) => a.parameter - b.parameter);
@@ -153,7 +153,13 @@ equations:
       const onNew = trace.events.filter((e) => e.branch === 2);
       expect(onNew.map((e) => e.type)).toEqual(x0 < 0 ? ['fold', 'fold'] : []);
       for (const e of onNew) expectClose(e.parameter, 0, { abs: 1e-12 }, 'fold of the new branch at λ = 0 (analytic)');
-    }
+    };
+    for (const x0 of [-0.005, 0.002, 0.01]) check(x0);
+    // And anywhere within a few steps of the fold.
+    fc.assert(fc.property(fc.double({ min: -0.1, max: 0.1, noNaN: true }), (x0) => {
+      fc.pre(Math.abs(x0) > 1e-3);
+      check(x0);
+    }), { seed: 57_721, numRuns: 25 });
   });
 
   it('says so when two crossings coincide and no step can part them, and still reaches the range end', () => {
