@@ -255,10 +255,14 @@ equations:
   });
 
   it('finds the Hopf points of oscillators mixed by a random rotation of the state, at their values and frequencies', () => {
-    // Analytic: with x = Q·y (Q orthogonal), x' = Q·g(Qᵀx) has the eigenvalues of y' = g(y): the
-    // oscillators and the damped mode of the test above, now coupled in every state of x.
+    // Analytic: with x = Q·y (Q orthogonal), x' = Q·g(Qᵀx) has the eigenvalues and normal forms of
+    // y' = g(y): oscillators r' = (λ − c)r ∓ k·r³ (super- or subcritical) and a damped mode, now
+    // coupled in every state of x.
     fc.assert(fc.property(
-      fc.array(fc.record({ c: fc.double({ min: -0.8, max: 0.8, noNaN: true }), w: fc.double({ min: 1.2, max: 3, noNaN: true }) }), { minLength: 1, maxLength: 2 }),
+      fc.array(fc.record({
+        c: fc.double({ min: -0.8, max: 0.8, noNaN: true }), w: fc.double({ min: 1.2, max: 3, noNaN: true }),
+        k: fc.double({ min: 0.2, max: 3, noNaN: true }), sub: fc.boolean(),
+      }), { minLength: 1, maxLength: 2 }),
       fc.double({ min: 1e-3, max: 0.3, noNaN: true }),
       fc.array(fc.double({ min: 0, max: 2 * Math.PI, noNaN: true }), { minLength: 15, maxLength: 15 }),
       (oscillators, delta, angles) => {
@@ -270,8 +274,9 @@ equations:
         const g: string[] = [];
         oscillators.forEach((o, j) => {
           const [a, b] = [y(2 * j), y(2 * j + 1)];
-          g.push(`(lam - ${num(o.c)})*${a} - ${num(o.w)}*${b} - ${a}*(${a}^2 + ${b}^2)`);
-          g.push(`${num(o.w)}*${a} + (lam - ${num(o.c)})*${b} - ${b}*(${a}^2 + ${b}^2)`);
+          const cubic = `${o.sub ? '+' : '-'} ${num(o.k)}`;
+          g.push(`(lam - ${num(o.c)})*${a} - ${num(o.w)}*${b} ${cubic}*${a}*(${a}^2 + ${b}^2)`);
+          g.push(`${num(o.w)}*${a} + (lam - ${num(o.c)})*${b} ${cubic}*${b}*(${a}^2 + ${b}^2)`);
         });
         g.push(`-${num(delta)}*${y(n - 2)} - 2*${y(n - 1)}`, `2*${y(n - 2)} - ${num(delta)}*${y(n - 1)}`);
         const text = [
@@ -290,7 +295,10 @@ equations:
         found.forEach((e, k) => {
           expectClose(e.parameter, expected[k]!.c, { abs: 1e-9 }, 'Hopf at λ = c (analytic)');
           expectClose(e.frequency!, expected[k]!.w, { rel: 1e-7 }, 'ω = w (analytic)');
-          expect(e.criticality).toBe('supercritical');
+          // ζ' = (μ + iω)ζ ∓ k·ζ|ζ|² in ζ = a + ib: l1 = ∓2k/ω with ⟨q, q⟩ = 1 in Kuznetsov's §3.5 formula
+          // (analytic, as for the normal form of test/detect/hopfCoefficient.test.ts), whatever the rotation.
+          expect(e.criticality).toBe(expected[k]!.sub ? 'subcritical' : 'supercritical');
+          expectClose(e.lyapunov!, ((expected[k]!.sub ? 2 : -2) * expected[k]!.k) / expected[k]!.w, { rel: 1e-5 }, 'l1 = ∓2k/ω (analytic)');
         });
       },
     ), { seed: 14_142, numRuns: 25 });
