@@ -303,7 +303,42 @@ equations:
       },
     ), { seed: 14_142, numRuns: 25 });
   });
+
+  it('finds the fold of y1\' = λ − c + a·y1² mixed by a random rotation with stable modes, with |fold coefficient| = a', () => {
+    // Analytic: equilibria λ = c − a·y1² (other y_j = 0) fold at λ = c; the coefficient ½⟨p, B(q, q)⟩ with
+    // ‖q‖ = 1 is ±a (sign by the orientation convention of src/detect/foldCoefficient.ts) and does not
+    // change under an orthogonal change of coordinates x = Q·y.
+    fc.assert(fc.property(
+      fc.double({ min: -0.8, max: 0.8, noNaN: true }), fc.double({ min: 0.2, max: 4, noNaN: true }),
+      fc.array(fc.double({ min: 0.1, max: 2, noNaN: true }), { minLength: 1, maxLength: 3 }),
+      fc.array(fc.double({ min: 0, max: 2 * Math.PI, noNaN: true }), { minLength: 6, maxLength: 6 }),
+      (c, a, damping, angles) => {
+        const n = damping.length + 1;
+        const q = rotation(angles, n);
+        const num = (x: number) => x.toPrecision(17);
+        const g = [`lam - ${num(c)} + ${num(a)}*y0^2`, ...damping.map((d, j) => `-${num(d)}*y${j + 1}`)];
+        const text = [
+          'states:', ...Array.from({ length: n }, (_, i) => `  x${i}: 0`),
+          'parameters: { lam: -1 }',
+          'definitions:',
+          ...Array.from({ length: n }, (_, k) => `  y${k}: ${Array.from({ length: n }, (_, i) => `(${num(q[i]![k]!)})*x${i}`).join(' + ')}`),
+          ...g.map((e, k) => `  g${k}: ${e}`),
+          'equations:',
+          ...Array.from({ length: n }, (_, i) => `  x${i}: ${Array.from({ length: n }, (_, k) => `(${num(q[i]![k]!)})*g${k}`).join(' + ')}`),
+        ].join('\n');
+        // The start at λ = −1: y0 = √((c + 1)/a), the other y_j = 0, in x = Q·y.
+        const y0 = Math.sqrt((c + 1) / a);
+        const start = Float64Array.from({ length: n }, (_, i) => q[i]![0]! * y0);
+        const trace = traceBranches(system(text), Float64Array.of(-1), traceSettings(0, -1, 1), [start]);
+        expect(trace.events.map((e) => e.type)).toEqual(['fold']);
+        expectClose(trace.events[0]!.parameter, c, { abs: 1e-10 }, 'fold at λ = c (analytic)');
+        expectClose(Math.abs(trace.events[0]!.foldCoefficient!), a, { rel: 1e-6 }, '|fold coefficient| = a (analytic)');
+        expect(trace.branches[0]!.stopped).toBe('left range');
+      },
+    ), { seed: 69_314, numRuns: 25 });
+  });
 });
+
 
 /** The product of the Givens rotations by angles[0], angles[1], … in the planes (0,1), (0,2), …, (n−2,n−1). */
 function rotation(angles: readonly number[], n: number): number[][] {
