@@ -339,7 +339,6 @@ equations:
   });
 });
 
-
 /** The product of the Givens rotations by angles[0], angles[1], … in the planes (0,1), (0,2), …, (n−2,n−1). */
 function rotation(angles: readonly number[], n: number): number[][] {
   const q: number[][] = Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => (i === j ? 1 : 0)));
