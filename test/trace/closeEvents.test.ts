@@ -337,7 +337,40 @@ equations:
       },
     ), { seed: 69_314, numRuns: 25 });
   });
+
+  it('on x\' = y, y\' = λ + b·x + x² + s·x·y finds the fold, and the Hopf point for b < 0 but not the neutral saddle for b > 0', () => {
+    // Analytic: equilibria y = 0, x² + b·x + λ = 0 fold at λ = b²/4 (x = −b/2). The Jacobian
+    // [[0, 1], [b + 2x, s·x]] has trace s·x and determinant −(b + 2x): at x = 0 (λ = 0) the trace
+    // vanishes; for b < 0 the determinant −b is positive (a Hopf point, ω = √−b), for b > 0 negative
+    // (a neutral saddle, real eigenvalues ±√b: not a Hopf point).
+    fc.assert(fc.property(
+      fc.double({ min: 0.1, max: 1, noNaN: true }), fc.boolean(), fc.constantFrom(-1, 1),
+      (size, negative, sign) => {
+        const b = negative ? -size : size;
+        const model = system(`
+states: { x: 0, y: 0 }
+parameters: { lam: -1 }
+equations:
+  x: y
+  y: lam + (${b.toPrecision(17)})*x + x^2 + (${sign})*x*y
+`);
+        // Both equilibria at λ = −1 (x² + b·x − 1 = 0); they lie on one branch through the fold.
+        const root = (pm: number) => (-b + pm * Math.sqrt(b * b + 4)) / 2;
+        const trace = traceBranches(model, Float64Array.of(-1), traceSettings(0, -1, 1), [Float64Array.of(root(1), 0), Float64Array.of(root(-1), 0)]);
+        expect(trace.branches).toHaveLength(1);
+        const events = [...trace.events].sort((p, q) => p.parameter - q.parameter);
+        expect(events.map((e) => e.type)).toEqual(negative ? ['hopf', 'fold'] : ['fold']);
+        const fold = events.at(-1)!;
+        expectClose(fold.parameter, (b * b) / 4, { abs: 1e-10 }, 'fold at λ = b²/4 (analytic)');
+        if (negative) {
+          expectClose(events[0]!.parameter, 0, { abs: 1e-10 }, 'Hopf at λ = 0 (analytic)');
+          expectClose(events[0]!.frequency!, Math.sqrt(-b), { rel: 1e-8 }, 'ω = √−b (analytic)');
+        }
+      },
+    ), { seed: 11_235, numRuns: 30 });
+  });
 });
+
 
 /** The product of the Givens rotations by angles[0], angles[1], … in the planes (0,1), (0,2), …, (n−2,n−1). */
 function rotation(angles: readonly number[], n: number): number[][] {
