@@ -16,3 +16,8 @@ export function parameterIndex(system: System, name: string): number {
   if (k < 0) throw new Error(`no parameter ${name}`);
   return k;
 }
+
+/** Compiles a model given as text (a test's own model). */
+export function textSystem(text: string): System {
+  return compileModel(loadModel(text, 'test.yaml'));
+}
