@@ -1,34 +1,50 @@
 /**
- * Whether more eigenvalues crossed the imaginary axis between two consecutive points than the
- * sign-change tests can show. Two real eigenvalues crossing in one step (two branch points or folds)
- * leave det [F_z; tᵀ] with its sign; two complex pairs leave the Hopf test with its sign. The count of
- * unstable eigenvalues still tells: one real crossing changes it by 1, one complex pair by 2 (with the
- * count of unstable complex eigenvalues). So a step is too long when the count changes by 3 or more,
- * or by 2 while the unstable complex count stays (two real crossings). A complex pair turning into two
- * real eigenvalues on one side of the axis leaves the unstable count as it is. Common practice:
- * counting eigenvalues as a check on the test functions.
+ * Whether a step between two consecutive points holds more changes of the eigenvalues than the
+ * sign-change tests can tell apart, so that the walker should shorten it:
+ *
+ *  - Two real eigenvalues crossing the imaginary axis in one step (two branch points or folds) leave
+ *    det [F_z; tᵀ] with its sign; two complex pairs leave the Hopf test with its sign. The count of
+ *    unstable eigenvalues still tells: one real crossing changes it by 1, one complex pair by 2 (with
+ *    the count of unstable complex eigenvalues). So: a change by 3 or more, or by 2 while the unstable
+ *    complex count stays (two real crossings).
+ *  - A complex pair that turns into two real eigenvalues (or back) does not change the unstable
+ *    count, and no single crossing changes the number of complex eigenvalues. Both together in one
+ *    step mean a collision beside a crossing: next to a Bogdanov–Takens point a Hopf pair crosses,
+ *    turns real and a fold follows within a tiny stretch, and seen from the ends of the step the
+ *    Hopf point has vanished.
+ *
+ * Common practice: counting eigenvalues as a check on the test functions.
  */
 import { IMAG_TOL, TRACE } from '../defaults.js';
 import type { Eigenvalue } from '../types.js';
 
-function unstableCounts(values: readonly Eigenvalue[]): { all: number; complex: number } {
+function counts(values: readonly Eigenvalue[]): { unstable: number; unstableComplex: number; complex: number } {
   let size = 1;
   for (const v of values) size = Math.max(size, Math.hypot(v.re, v.im));
   const threshold = TRACE.stabilityTol * size;
   const imagTol = IMAG_TOL * (1 + size);
-  let all = 0;
+  let unstable = 0;
+  let unstableComplex = 0;
   let complex = 0;
   for (const v of values) {
+    const isComplex = Math.abs(v.im) > imagTol;
+    if (isComplex) complex++;
     if (!(v.re > threshold)) continue;
-    all++;
-    if (Math.abs(v.im) > imagTol) complex++;
+    unstable++;
+    if (isComplex) unstableComplex++;
   }
-  return { all, complex };
+  return { unstable, unstableComplex, complex };
 }
 
-export function hiddenCrossings(before: readonly Eigenvalue[], after: readonly Eigenvalue[]): boolean {
-  const a = unstableCounts(before);
-  const b = unstableCounts(after);
-  const change = Math.abs(b.all - a.all);
-  return change >= 3 || (change === 2 && b.complex === a.complex);
+/**
+ * 'crossings': more crossings than the tests can see; 'collision': a pair turning real (or complex)
+ * beside a crossing; null: the step is fine. Only the first is worth a warning when even the smallest
+ * step cannot part them (a collision is not a special point, and the crossing beside it is found).
+ */
+export function hiddenCrossings(before: readonly Eigenvalue[], after: readonly Eigenvalue[]): 'crossings' | 'collision' | null {
+  const a = counts(before);
+  const b = counts(after);
+  const change = Math.abs(b.unstable - a.unstable);
+  if (change >= 3 || (change === 2 && b.unstableComplex === a.unstableComplex)) return 'crossings';
+  return change > 0 && b.complex !== a.complex ? 'collision' : null;
 }

@@ -5,8 +5,8 @@
  *
  * Step control (common practice): halve ds when the corrector fails or the tangent turns by more
  * than maxTurnDegrees (keeps the predictor error, about κ·ds²/2, small against the branch
- * spacing), or when the step hides two eigenvalue crossings (hiddenCrossings.ts: the test
- * functions would not change sign; halving stops at dsMin); grow it by growFactor after a
+ * spacing), or when the step hides eigenvalue crossings (hiddenCrossings.ts: two crossings, or a
+ * crossing beside a pair turning real, which the test functions cannot tell; halving stops at dsMin); grow it by growFactor after a
  * correction of at most easyIterations Newton steps; clamp to [dsMin, dsMax].
  *
  * Stops: 'left range' (last point landed exactly on the bound, landOnBound.ts), 'closed loop'
@@ -78,12 +78,13 @@ export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): W
       return { points, stopped: 'left range' };
     }
     const point = rawPoint(ext, z, tNew, tangent, { residual: c.residual, iterations: c.iterations, step, s: cur.s + step });
-    if (hiddenCrossings(cur.eigenvalues, point.eigenvalues)) {
+    const hidden = hiddenCrossings(cur.eigenvalues, point.eigenvalues);
+    if (hidden !== null) {
       if (ds * TRACE.shrinkFactor >= settings.dsMin) {
         ds *= TRACE.shrinkFactor;
         continue;
       }
-      ctx.warnings.push(message.traceHiddenCrossings(ctx.name, cur.z[n]!, lambda));
+      if (hidden === 'crossings') ctx.warnings.push(message.traceHiddenCrossings(ctx.name, cur.z[n]!, lambda));
     }
     points.push(point);
     cur = point;
