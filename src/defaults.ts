@@ -55,6 +55,8 @@ export const TRACE = {
    *  Newton on the augmented branch-point system (at most branchPointMaxIter steps) finishes. */
   branchPointStartTol: 1e-6,
   branchPointMaxIter: 12,
+  /** A start that is a branch point moves this fraction of the range toward `to`. */
+  startNudge: 1e-6,
   /** Offset of a switched branch's first point from the branch point, as a fraction of ds. */
   switchOffset: 0.3,
   /** Eigenvalues with real part below this (relative to max(1, |largest eigenvalue|)) count as stable. */

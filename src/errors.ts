@@ -185,6 +185,9 @@ export const message = {
     `(residual ${residual.toExponential(2)})`,
   traceNoTangent: (param: string, value: number) =>
     `a start point at ${param} = ${value} was dropped: the branch direction there could not be computed`,
+  traceBoundBranchPoint: (param: string, value: number) =>
+    `${param} = ${value}, an end of the range, is a branch point (the branch direction is not unique there): ` +
+    'a branch that starts or ends there is followed only up to it; widen the range to follow the branches that cross there',
   traceBranchStopped: (branch: number, reason: string, param: string, value: number) =>
     `branch ${branch} stopped at ${param} = ${value.toPrecision(8)}: ${reason}`,
   traceLandFailed: (param: string, bound: number, status: string, residual: number, iterations: number) =>

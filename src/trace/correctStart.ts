@@ -1,12 +1,14 @@
 /**
  * A start equilibrium made exact: Newton's method at its fixed parameter value λ (usually `from`)
  * (src/solve/newton.ts), then the first branch point with its tangent oriented toward `to`
- * (startPoint.ts). Returns a warning text when either step fails.
+ * (startPoint.ts). Returns a warning text when either step fails. A start on a branch point has
+ * no unique direction: it moves TRACE.startNudge of the range toward `to` (with a note when it was
+ * an end of the range: the branches that cross there are then not switched to from this start).
  */
-import { NEWTON } from '../defaults.js';
+import { NEWTON, TRACE } from '../defaults.js';
 import { message } from '../errors.js';
 import { newton } from '../solve/newton.js';
-import type { TraceSettings } from '../types.js';
+import type { NewtonResult, TraceSettings } from '../types.js';
 import type { ExtendedSystem } from './extendedSystem.js';
 import type { RawPoint } from './rawPoint.js';
 import { startPoint } from './startPoint.js';
@@ -14,22 +16,36 @@ import type { Workspace } from './workspace.js';
 
 export function correctStart(
   ext: ExtendedSystem, work: Workspace, x0: Float64Array, lambda: number, settings: TraceSettings, name: string,
-): RawPoint | string {
+): { point: RawPoint; note?: string } | string {
   const { from, to } = settings;
+  const solved = solveAt(ext, x0, lambda, settings);
+  if (solved.status !== 'converged') {
+    return message.traceStartFailed(name, lambda, solved.status, solved.residual, solved.iterations);
+  }
+  const toward = new Float64Array(ext.m);
+  toward[ext.n] = to >= from ? 1 : -1;
+  const first = (r: NewtonResult, at: number) =>
+    startPoint(ext, ext.unknownOf(r.x, at), toward, work, { residual: r.residual, iterations: r.iterations });
+  const start = first(solved, lambda);
+  if (start !== null) return { point: start };
+  // No unique direction: the start is a branch point. Start a little further into the range
+  // instead (a branch point inside the range is then found as usual, from both sides).
+  const nudged = lambda + TRACE.startNudge * (to - from);
+  const moved = solveAt(ext, solved.x, nudged, settings);
+  const point = moved.status === 'converged' ? first(moved, nudged) : null;
+  if (point === null) return message.traceNoTangent(name, lambda);
+  const atEnd = lambda === from || lambda === to;
+  return atEnd ? { point, note: message.traceBoundBranchPoint(name, lambda) } : { point };
+}
+
+/** Newton's method for the equilibrium at the fixed parameter value λ. */
+function solveAt(ext: ExtendedSystem, x0: Float64Array, lambda: number, settings: TraceSettings): NewtonResult {
   const p = ext.p.slice();
   p[ext.k] = lambda;
-  const result = newton(
+  return newton(
     (x, out) => ext.system.rhs(x, p, out),
     (x, out) => ext.system.jacobian(x, p, out),
     x0,
     { absTol: settings.absTol, maxIter: NEWTON.maxIter },
   );
-  if (result.status !== 'converged') {
-    return message.traceStartFailed(name, lambda, result.status, result.residual, result.iterations);
-  }
-  const toward = new Float64Array(ext.m);
-  toward[ext.n] = to >= from ? 1 : -1;
-  const z = ext.unknownOf(result.x, lambda);
-  const start = startPoint(ext, z, toward, work, { residual: result.residual, iterations: result.iterations });
-  return start ?? message.traceNoTangent(name, lambda);
 }

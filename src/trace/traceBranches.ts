@@ -78,13 +78,22 @@ export function traceBranches(
   let interrupted = false;
   while (queue.length > 0) {
     const job = queue.shift()!;
-    const start = job.kind === 'start'
-      ? correctStart(ext, work, job.x, job.parameter, settings, name)
-      : switchStart(ext, work, job.z, job.d, TRACE.switchOffset * settings.ds, settings);
-    if (typeof start === 'string') {
-      warnings.push(job.kind === 'start' ? start
-        : message.traceSwitchFailed(job.event.point.branch + 1, name, job.event.point.parameter, start));
-      continue;
+    let start: RawPoint;
+    let note: string | undefined;
+    if (job.kind === 'start') {
+      const corrected = correctStart(ext, work, job.x, job.parameter, settings, name);
+      if (typeof corrected === 'string') {
+        warnings.push(corrected);
+        continue;
+      }
+      ({ point: start, note } = corrected);
+    } else {
+      const switched = switchStart(ext, work, job.z, job.d, TRACE.switchOffset * settings.ds, settings);
+      if (typeof switched === 'string') {
+        warnings.push(message.traceSwitchFailed(job.event.point.branch + 1, name, job.event.point.parameter, switched));
+        continue;
+      }
+      start = switched;
     }
     // A switched start is not compared with its parent branch: the two cross there, maybe at a
     // small angle, and the parent is by construction not the other branch.
@@ -94,6 +103,7 @@ export function traceBranches(
       warnings.push(message.traceBranchLimit(settings.maxBranches));
       break;
     }
+    if (note !== undefined && !warnings.includes(note)) warnings.push(note);
     const id = branches.length;
     computed = 0;
     // A start at the range end walks one way; other starts and switched branches run both ways.

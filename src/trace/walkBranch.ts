@@ -99,12 +99,22 @@ export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): W
   }
 }
 
-/** Appends the point on the bound between `cur` (inside) and `outside`, if Newton converges there. */
+/**
+ * Appends the point on the bound between `cur` (inside) and `outside`, if Newton converges there.
+ * A bound that is a branch point has no unique tangent: the point keeps the direction of travel
+ * (and a zero branch-point test value), and the warnings say so.
+ */
 function landPoint(ctx: WalkContext, cur: RawPoint, outside: Float64Array, bound: number, points: RawPoint[]): void {
   const { ext, work, settings } = ctx;
   const { z, result } = landOnBound(ext, cur.z, outside, bound, settings);
   const t = new Float64Array(ext.m);
-  const tangent = result.status === 'converged' ? tangentAt(ext, z, cur.t, t, work) : undefined;
+  let tangent = result.status === 'converged' ? tangentAt(ext, z, cur.t, t, work) : undefined;
+  if (tangent?.singular === true) {
+    t.set(cur.t);
+    tangent = { ok: true, singular: true, detSign: 0, detLog: -Infinity };
+    const note = message.traceBoundBranchPoint(ctx.name, bound);
+    if (!ctx.warnings.includes(note)) ctx.warnings.push(note);
+  }
   if (tangent === undefined || !tangent.ok) {
     ctx.warnings.push(message.traceLandFailed(ctx.name, bound, result.status, result.residual, result.iterations));
     return;

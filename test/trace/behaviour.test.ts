@@ -13,6 +13,7 @@ import { makeSystem } from '../helpers/handSystem.js';
 import { bisect } from './bisect.js';
 import { expectClose } from '../helpers/close.js';
 import { expectAllConverged } from './expectTraced.js';
+import { textSystem } from './modelFile.js';
 import { scalarSystem, withStableDirection } from './traceSystems.js';
 
 /** x' = λ + x − x³, y' = −y: equilibria λ = x³ − x, an S between the folds at x = ∓1/√3. */
@@ -164,6 +165,37 @@ describe('traceBranches start problems', () => {
     expect(trace.warnings).toHaveLength(1);
     const prefix = message.traceStartFailed('lambda', 1, 'STATUS', 0, 0).split('Newton')[0]!;
     expect(trace.warnings[0]!.startsWith(prefix)).toBe(true);
+  });
+});
+
+describe('traceBranches with a branch point on a range end or at a start', () => {
+  const pitchfork = (): ReturnType<typeof textSystem> => textSystem('states: { x: 0 }\nparameters: { lam: 0 }\nequations:\n  x: lam*x - x^3');
+  const onBound = (l: number) => message.traceBoundBranchPoint('lam', l);
+
+  it('starts next to a branch point at the start of the range, and says so', () => {
+    // Analytic: x' = λx − x³ has a pitchfork at (0, 0): from λ = 0 the direction of x = 0 is not unique.
+    const trace = traceBranches(pitchfork(), Float64Array.of(0), traceSettings(0, 0, 1), [new Float64Array(1)]);
+    expect(trace.branches).toHaveLength(1);
+    const points = trace.branches[0]!.points;
+    expect([points[0]!.parameter, points.at(-1)!.parameter]).toEqual([0, 1]);
+    for (const q of points) expect(q.state[0]).toBe(0); // the branch x = 0 (analytic)
+    expect(trace.events).toEqual([]);
+    expect(trace.warnings).toEqual([onBound(0)]);
+  });
+
+  it('lands on a branch point at the end of the range without a failure', () => {
+    const trace = traceBranches(pitchfork(), Float64Array.of(-1), traceSettings(0, -1, 0), [new Float64Array(1)]);
+    expect(trace.branches[0]!.stopped).toBe('left range');
+    expect(trace.branches[0]!.points.at(-1)!.parameter).toBe(0);
+    expect(trace.warnings).toEqual([onBound(0)]);
+  });
+
+  it('traces both ways from a start inside the range that is a branch point, and reports it', () => {
+    const trace = traceBranches(pitchfork(), Float64Array.of(-1), traceSettings(0, -1, 1), [{ state: new Float64Array(1), parameter: 0 }]);
+    expect(trace.events.map((e) => e.type)).toEqual(['pitchfork']);
+    expect(Math.abs(trace.events[0]!.parameter)).toBeLessThan(1e-10); // analytic: λ = 0
+    expect(trace.branches).toHaveLength(2); // x = 0, and x = ±√λ by switching
+    expect(trace.warnings).toEqual([]);
   });
 });
 
