@@ -22,6 +22,18 @@ function toggleFold(uLo: number, uHi: number): number {
 }
 
 describe('sweep()', () => {
+  it('reports a Hopf point that sits exactly on an end of the range', () => {
+    // Brusselator (Prigogine & Lefever 1968): Hopf point at b = 1 + a² = 2 for a = 1 (models/brusselator.yaml).
+    // A range that starts or ends there sees the pair on the axis at its end, with no sign change.
+    const model = readModelFile('models/brusselator.yaml');
+    for (const [from, to] of [[2, 4], [4, 2], [0.5, 2], [2, 0.5]] as const) {
+      const { report } = sweep(model, { vary: 'b', from, to });
+      expect(report.events.map((e) => e.type), `${from} → ${to}`).toEqual(['hopf']);
+      expect(Math.abs(report.events[0]!.parameter - 2)).toBeLessThan(1e-12);
+      expect(report.events[0]!.frequency).toBeCloseTo(1, 10); // ω = a = 1 (analytic: det J = a² at the Hopf point)
+    }
+  });
+
   it('gives every point and special point its own diagnostics: residual, iterations, step, test-function values', () => {
     // Lorenz (1963) from rho = 0 to 30: the pitchfork at rho = 1 (det of the bordered Jacobian),
     // and two subcritical Hopf points at rho = 470/19 (real part of the critical pair) (analytic).

@@ -13,7 +13,7 @@
  *                 saddle flips the sign only), located on the real part of the pair that
  *                 crosses (crossingFrequency, then pairRealPart.ts).
  */
-import { IMAG_TOL } from '../defaults.js';
+import { IMAG_TOL, TRACE } from '../defaults.js';
 import { eigenvalues } from '../linalg/eig.js';
 import type { Eigenvalue, EventType } from '../types.js';
 import type { ExtendedSystem } from './extendedSystem.js';
@@ -45,6 +45,8 @@ export interface DetectOptions {
   rootMaxIter: number;
   /** Brackets not to locate in (e.g. around a branch point already found from another branch). */
   skip?: (type: FoundEvent['type'], a: RawPoint, b: RawPoint) => boolean;
+  /** The ends of the parameter range: a branch end exactly on one may sit on a Hopf point. */
+  bounds?: readonly [number, number];
 }
 
 export function detectEvents(
@@ -113,7 +115,43 @@ export function detectEvents(
       record('hopf', i, hopf, gA, gB);
     }
   }
+  // A Hopf point exactly on an end of the range (a range chosen to end at it): there the crossing
+  // pair's real part is zero to rounding, so its sign says nothing. Counted when the branch end lies
+  // on a bound, a pair there has |Re| within the stability threshold (src/trace/stabilityOf.ts), and
+  // the same pair at the neighbouring point is off the axis; the root is then that end itself.
+  if (points.length >= 2) {
+    for (const [end, next] of [[0, 1], [points.length - 1, points.length - 2]] as const) {
+      const q = points[end]!;
+      if (!(opts.bounds?.includes(q.z[n]!) ?? false)) continue;
+      const omega = pairOnAxis(q.eigenvalues, points[next]!.eigenvalues);
+      if (omega === null) continue;
+      const g = pairRealPart(points[next]!.eigenvalues, omega);
+      const hopf: BranchTest = (_z, _t, tangent) =>
+        tangent.ok || tangent.singular ? pairRealPart(eigenvalues(ext.jx, n), omega) : NaN;
+      if (end === 0) record('hopf', 0, hopf, 0, g);
+      else record('hopf', next, hopf, g, 0);
+    }
+  }
   return { events, failures };
+}
+
+/**
+ * The frequency of a complex pair with |Re| within the stability threshold at `at` whose nearest
+ * match at `beside` has |Re| above it (so the pair leaves the axis along the branch), or null.
+ */
+function pairOnAxis(at: readonly Eigenvalue[], beside: readonly Eigenvalue[]): number | null {
+  const scale = Math.max(1, size(at));
+  const threshold = TRACE.stabilityTol * scale;
+  const imagTol = IMAG_TOL * (1 + scale);
+  for (const v of at) {
+    if (!(v.im > imagTol) || !(Math.abs(v.re) <= threshold)) continue;
+    let match: Eigenvalue | null = null;
+    for (const w of beside) {
+      if (w.im > imagTol && (match === null || Math.hypot(w.re - v.re, w.im - v.im) < Math.hypot(match.re - v.re, match.im - v.im))) match = w;
+    }
+    if (match !== null && Math.abs(match.re) > TRACE.stabilityTol * Math.max(1, size(beside))) return v.im;
+  }
+  return null;
 }
 
 /**

@@ -73,6 +73,7 @@ export function traceBranches(
   const detectOptions = {
     absTol: settings.absTol, maxIter: settings.maxIter, rootMaxIter: TRACE.locateMaxIter,
     tol: (lambda: number) => TRACE.locateRelTol * Math.max(Math.abs(lambda), 1e-3 * range),
+    bounds: [from, to] as const,
   };
   const queue: Job[] = jobs;
   let interrupted = false;
