@@ -7,10 +7,11 @@ import type { StopReason } from '../types.js';
 import type { ExtendedSystem } from './extendedSystem.js';
 import type { WalkedBranch } from './traceBothWays.js';
 
-const WHY: Record<StopReason, string> = {
+export const STOP_WHY: Record<StopReason, string> = {
   'left range': 'it left the parameter range',
   'closed loop': 'it closed into a loop',
-  'point budget': 'the point budget per branch is used up; raise it to follow the branch further',
+  'point budget': 'the point budget per branch is used up; raise it to follow the branch further, or give the ' +
+    'states start values of their typical size in the model (steps are measured against them)',
   'step too small': 'the step length fell below its smallest value (the corrector kept failing)',
   'non-finite': 'the model gave a value that is not finite',
   interrupted: 'interrupted',
@@ -22,6 +23,7 @@ export function reportStops(ext: ExtendedSystem, walked: WalkedBranch, id: numbe
   stops.forEach((stop, side) => {
     const end = ends[side];
     if (stop === null || stop === 'left range' || stop === 'closed loop' || stop === 'interrupted' || end === undefined) return;
-    warnings.push(message.traceBranchStopped(id, WHY[stop], name, end.z[ext.n]!));
+    const warning = message.traceBranchStopped(id, STOP_WHY[stop], name, end.z[ext.n]!);
+    if (!warnings.includes(warning)) warnings.push(warning);
   });
 }

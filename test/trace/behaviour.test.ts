@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { TRACE } from '../../src/defaults.js';
 import { hopfTest } from '../../src/detect/hopfTest.js';
 import { message } from '../../src/errors.js';
+import { STOP_WHY } from '../../src/trace/reportStops.js';
 import { traceBranches } from '../../src/trace/traceBranches.js';
 import { traceSettings } from '../../src/trace/traceSettings.js';
 import type { SpecialPoint } from '../../src/types.js';
@@ -150,7 +151,7 @@ describe('traceBranches limits', () => {
     expect(branch.points).toHaveLength(10);
     const last = branch.points[branch.points.length - 1]!;
     expect(trace.warnings).toEqual([
-      message.traceBranchStopped(1, 'the point budget per branch is used up; raise it to follow the branch further', 'lambda', last.parameter),
+      message.traceBranchStopped(1, STOP_WHY['point budget'], 'lambda', last.parameter),
     ]);
   });
 });
