@@ -9,7 +9,7 @@ import { reversedPoint, type RawPoint } from './rawPoint.js';
 import { walkBranch, type WalkContext } from './walkBranch.js';
 
 /** Which stop to report for a branch walked both ways: the less ordinary one. */
-const STOP_RANK: Record<StopReason, number> = {
+export const STOP_RANK: Record<StopReason, number> = {
   'left range': 0, 'closed loop': 1, 'point budget': 2, 'step too small': 3, 'non-finite': 4, interrupted: 5,
 };
 
@@ -18,6 +18,8 @@ export interface WalkedBranch {
   stopped: StopReason;
   /** Per direction, for warnings: [backward, forward]. */
   stops: [StopReason | null, StopReason];
+  /** A branch walked away from a branch point on both sides: that point, between the two walks. */
+  centre?: RawPoint;
 }
 
 export function traceBothWays(ctx: WalkContext, start: RawPoint, maxPoints: number, forwardShare = 1): WalkedBranch {

@@ -25,7 +25,7 @@ import { reportStops } from './reportStops.js';
 import { tracePoint, type RawPoint } from './rawPoint.js';
 import { alreadyFound, pendingEvent, type PendingEvent } from './specialPoint.js';
 import { stateWeights } from './stateWeights.js';
-import { switchStart } from './switchStart.js';
+import { switchBothWays, type Switched } from './switchBothWays.js';
 import { traceBothWays } from './traceBothWays.js';
 import type { WalkContext } from './walkBranch.js';
 import { makeWorkspace, nearSegment } from './workspace.js';
@@ -81,6 +81,7 @@ export function traceBranches(
     const job = queue.shift()!;
     let start: RawPoint;
     let note: string | undefined;
+    let switched: Switched | undefined;
     if (job.kind === 'start') {
       const corrected = correctStart(ext, work, job.x, job.parameter, settings, name);
       if (typeof corrected === 'string') {
@@ -89,12 +90,13 @@ export function traceBranches(
       }
       ({ point: start, note } = corrected);
     } else {
-      const switched = switchStart(ext, work, job.z, job.d, TRACE.switchOffset * settings.ds, settings);
-      if (typeof switched === 'string') {
-        warnings.push(message.traceSwitchFailed(job.event.point.branch + 1, name, job.event.point.parameter, switched));
+      const made = switchBothWays(ctx, job.z, job.d);
+      if (typeof made === 'string') {
+        warnings.push(message.traceSwitchFailed(job.event.point.branch + 1, name, job.event.point.parameter, made));
         continue;
       }
-      start = switched;
+      switched = made;
+      start = made.first;
     }
     // A switched start is not compared with its parent branch: the two cross there, maybe at a
     // small angle, and the parent is by construction not the other branch.
@@ -107,9 +109,10 @@ export function traceBranches(
     if (note !== undefined && !warnings.includes(note)) warnings.push(note);
     const id = branches.length;
     computed = 0;
-    // A start at the range end walks one way; other starts and switched branches run both ways.
+    // A start at the range end walks one way; other starts run both ways; switched branches walk
+    // away from their branch point on both sides (switchBothWays.ts).
     const atEnd = job.kind === 'start' && job.parameter === from;
-    const walked = traceBothWays(ctx, start, settings.maxPoints, atEnd ? 1 : 0.5);
+    const walked = switched !== undefined ? switched.walk(settings.maxPoints) : traceBothWays(ctx, start, settings.maxPoints, atEnd ? 1 : 0.5);
     traced.push(walked.points);
     reportStops(ext, walked, id + 1, name, warnings); // messages count branches from 1
     branches.push({
@@ -126,8 +129,12 @@ export function traceBranches(
       interrupted = true;
       break;
     }
+    // Not again: a branch point already found (seen from the crossing branch), nor a turn of a
+    // switched branch at the branch point it started from (a pitchfork, not a fold).
+    const centre = walked.centre;
     const skip = (type: string, a: RawPoint, b: RawPoint): boolean =>
-      type === 'branch-point' && pending.some((e) => e.found === type && nearSegment(e.z, a.z, b.z));
+      (type === 'branch-point' && pending.some((e) => e.found === type && nearSegment(e.z, a.z, b.z))) ||
+      (type === 'fold' && centre !== undefined && (a === centre || b === centre));
     const { events, failures } = detectEvents(ext, work, walked.points, { ...detectOptions, skip });
     for (const f of failures) {
       const [a, b] = f.between.map((i) => walked.points[i]!.z[ext.n]!) as [number, number];

@@ -200,6 +200,28 @@ describe('traceBranches with a branch point on a range end or at a start', () =>
   });
 });
 
+describe('traceBranches switching at a pitchfork', () => {
+  it('walks the new branch away from the branch point on both sides, through the point itself, never onto the old branch', () => {
+    // Analytic: x' = (λ/c − 1)x − x³/s² has the pitchfork at λ = c and the new branch |x| = s·√(λ/c − 1).
+    // State and parameter of different sizes make the two branches close next to the branch point.
+    for (const [c, scale] of [[3, 1], [10, 1], [1, 0.3], [1, 0.1]] as const) {
+      const model = textSystem(`states: { x: 0 }\nparameters: { lam: 0, c: ${c}, s: ${scale} }\nequations:\n  x: (lam/c - 1)*x - x^3/s^2`);
+      const trace = traceBranches(model, Float64Array.of(0, c, scale), traceSettings(0, 0, 2 * c), [new Float64Array(1)]);
+      expect(trace.events.map((e) => e.type)).toEqual(['pitchfork']);
+      expect(trace.warnings).toEqual([]);
+      const switched = trace.branches[1]!;
+      expect(switched.stopped).toBe('left range');
+      const xs = switched.points.map((q) => q.state[0]!);
+      expect(Math.min(...xs)).toBeLessThan(0); // both halves
+      expect(Math.max(...xs)).toBeGreaterThan(0);
+      expect(switched.points.some((q) => q.parameter === trace.events[0]!.parameter && q.state[0] === trace.events[0]!.state[0])).toBe(true);
+      for (const q of switched.points) {
+        expectClose(Math.abs(q.state[0]!), scale * Math.sqrt(Math.max(0, q.parameter / c - 1)), { abs: 1e-6 * scale }, '|x| = s√(λ/c − 1) (analytic)');
+      }
+    }
+  });
+});
+
 describe('traceBranches at the edge of the model\'s domain', () => {
   it('stops with "non-finite" where the branch runs into x < 0 of x\' = √x − λ, and warns', () => {
     // Analytic: equilibria x = λ² for λ ≥ 0 only; at (0, 0) the branch reaches the edge of the
