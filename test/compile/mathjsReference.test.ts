@@ -9,6 +9,7 @@ import { describe, it } from 'vitest';
 import { compileModel } from '../../src/compile/compileModel.js';
 import { expectClose } from '../helpers/close.js';
 import { modelFromText } from './modelFromText.js';
+import { repeatable } from '../helpers/repeatable.js';
 
 const POOL = [
   'x*y + sin(x)*exp(y)',
@@ -37,7 +38,7 @@ describe('Jacobian against mathjs derivative', () => {
           expectClose(out[0]!, dx.evaluate({ x, y }) as number, { abs: 1e-12, rel: 1e-10 }, `d/dx at ${x}, ${y}`);
           expectClose(out[1]!, dy.evaluate({ x, y }) as number, { abs: 1e-12, rel: 1e-10 }, `d/dy at ${x}, ${y}`);
         }),
-        { seed: 20240601, numRuns: 40 },
+        repeatable(20240601, 40),
       );
     });
   }

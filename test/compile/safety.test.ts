@@ -9,6 +9,7 @@ import { compileModel } from '../../src/compile/compileModel.js';
 import { jacobianKernel, rhsKernel } from '../../src/compile/kernels.js';
 import { lowerModel } from '../../src/compile/lower.js';
 import type { Expr, Model } from '../../src/types.js';
+import { repeatable } from '../helpers/repeatable.js';
 
 const HOSTILE = ['x', 'out', 'Math', 'constructor', '__proto__', "a'); globalThis.pwned = 1; ('", 't0', 'sel'];
 
@@ -70,7 +71,7 @@ describe('code generation safety', () => {
         expect(Object.is(Function(`"use strict"; return ${text};`)() as number, v)).toBe(true);
         expect(v < 0 || Object.is(v, -0) ? /^\(-.*\)$/.test(text) : /^[0-9]/.test(text)).toBe(true);
       }),
-      { seed: 7, numRuns: 300 },
+      repeatable(7, 300),
     );
   });
 

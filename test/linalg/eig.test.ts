@@ -4,6 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { eigenvalues, eigenvaluesWithDiagnostics, NonFiniteMatrixError } from '../../src/linalg/eig.js';
 import { luDeterminant, luFactor } from '../../src/linalg/lu.js';
 import type { Eigenvalue } from '../../src/types.js';
+import { repeatable } from '../helpers/repeatable.js';
 
 /** fast-check run number, fixed so failures reproduce. */
 const RUN = 20260;
@@ -62,7 +63,7 @@ describe('eigenvalues (Hessenberg + Francis double-shift QR)', () => {
     fc.assert(fc.property(denseArb, ({ n, a }) => {
       const scale = Math.max(1, frobenius(a));
       expect(mismatch(eigenvalues(a, n), reference(a, n))).toBeLessThan(1e-7 * scale);
-    }), { seed: RUN, numRuns: 200 });
+    }), repeatable(RUN, 200));
   });
 
   it('gives eigenvalues that sum to the trace and multiply to the determinant', () => {
@@ -84,7 +85,7 @@ describe('eigenvalues (Hessenberg + Francis double-shift QR)', () => {
       // |δ det| ≲ ε·n·Π‖A‖ (Hadamard bound ‖A‖_F^n bounds the size of all partial products).
       expect(Math.abs(pr - detValue)).toBeLessThan(1e-9 * scale ** n);
       expect(Math.abs(pi)).toBeLessThan(1e-9 * scale ** n);
-    }), { seed: RUN, numRuns: 200 });
+    }), repeatable(RUN, 200));
   });
 
   it('returns complex eigenvalues in exactly conjugate pairs, sorted by decreasing real then imaginary part', () => {
@@ -98,7 +99,7 @@ describe('eigenvalues (Hessenberg + Francis double-shift QR)', () => {
       for (const v of values.filter((x) => x.im !== 0)) {
         expect(values.some((w) => w.re === v.re && w.im === -v.im)).toBe(true);
       }
-    }), { seed: RUN, numRuns: 200 });
+    }), repeatable(RUN, 200));
   });
 
   it('finds the roots of a polynomial from its companion matrix', () => {

@@ -6,6 +6,7 @@ import {
   ExpressionSyntaxError, MAX_HEIGHT, MAX_NESTING, formatExpression, parseExpression, symbolsOf,
 } from '../../src/model/expr.js';
 import { FUNCTION_NAMES, type Expr } from '../../src/types.js';
+import { repeatable } from '../helpers/repeatable.js';
 
 /** Test-only evaluator of a parsed tree with plain JavaScript arithmetic. */
 function evaluate(e: Expr, scope: Record<string, number>): number {
@@ -139,7 +140,7 @@ describe('parseExpression: operators and precedence', () => {
         compared++;
         expect(Math.abs(ours - reference)).toBeLessThanOrEqual(1e-9 * Math.max(1, Math.abs(reference)));
       }),
-      { seed: 20261202, numRuns: 400 },
+      repeatable(20261202, 400),
     );
     expect(compared).toBeGreaterThan(200);
   });
@@ -168,7 +169,7 @@ describe('formatExpression and symbolsOf', () => {
       fc.property(tree, (t) => {
         expect(strip(parseExpression(formatExpression(t)))).toEqual(t);
       }),
-      { seed: 20261202, numRuns: 500 },
+      repeatable(20261202, 500),
     );
   });
 

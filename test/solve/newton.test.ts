@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { newton, type VectorFunction } from '../../src/solve/newton.js';
+import { repeatable } from '../helpers/repeatable.js';
 
 const opts = { absTol: 1e-12, maxIter: 50 };
 
@@ -36,7 +37,7 @@ describe('newton', () => {
         expect(r.iterations).toBeLessThanOrEqual(1);
         expect(r.residual).toBeLessThanOrEqual(1e-10);
       },
-    ), { seed: 4711, numRuns: 200 });
+    ), repeatable(4711, 200));
   });
 
   it('converges quadratically to √2 on x² − 2 = 0', () => {

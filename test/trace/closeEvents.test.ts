@@ -11,6 +11,7 @@ import { traceSettings } from '../../src/trace/traceSettings.js';
 import type { System } from '../../src/types.js';
 import { expectClose } from '../helpers/close.js';
 import { textSystem as system } from './modelFile.js';
+import { repeatable } from '../helpers/repeatable.js';
 
 /** Traced over λ from −1 to 1 from the origin (four states): exactly one special point, a supercritical Hopf point at λ = 0 with ω = 1. */
 function expectOneHopfAtZero(s: System): void {
@@ -156,7 +157,7 @@ equations:
     fc.assert(fc.property(fc.double({ min: -0.1, max: 0.1, noNaN: true }), (x0) => {
       fc.pre(Math.abs(x0) > 1e-3);
       check(x0);
-    }), { seed: 57_721, numRuns: 25 });
+    }), repeatable(57_721, 25));
   });
 
   it('says so when two crossings coincide and no step can part them, and still reaches the range end', () => {

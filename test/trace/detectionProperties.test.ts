@@ -1,5 +1,5 @@
 /**
- * Property tests (fast-check, fixed seeds) over families whose special points are known in closed
+ * Property tests (fast-check, fixed run numbers) over families whose special points are known in closed
  * form, chosen where detection is delicate: crossings closer than one step, frequencies that move
  * and nearly meet, lightly damped modes beside crossing ones, neutral saddles, and the same
  * eigenvalues mixed into every state by a random rotation.
@@ -11,6 +11,7 @@ import { traceSettings } from '../../src/trace/traceSettings.js';
 import type { System } from '../../src/types.js';
 import { expectClose } from '../helpers/close.js';
 import { textSystem as system } from './modelFile.js';
+import { repeatable } from '../helpers/repeatable.js';
 
 const num = (x: number): string => x.toPrecision(17);
 
@@ -79,7 +80,7 @@ describe('special points of random families', () => {
           expectClose(e.frequency!, o.w + o.s * o.c, { rel: 1e-7 }, 'ω = w + s·c (analytic)');
         });
       },
-    ), { seed: 27_182, numRuns: 40 });
+    ), repeatable(27_182, 40));
   });
 
   it('finds every branch point of random uncoupled modes on the trivial branch, each of its kind at its value', () => {
@@ -104,7 +105,7 @@ describe('special points of random families', () => {
         expect(onTrivial.map((e) => e.type)).toEqual(expected.map((m) => (m.cubic ? 'pitchfork' : 'transcritical')));
         onTrivial.forEach((e, k) => expectClose(e.parameter, expected[k]!.d, { abs: 1e-9 }, 'branch point at λ = d (analytic)'));
       },
-    ), { seed: 16_180, numRuns: 30 });
+    ), repeatable(16_180, 30));
   });
 
   it('finds the Hopf points of oscillators mixed by a random rotation of the state, at their values and frequencies', () => {
@@ -144,7 +145,7 @@ describe('special points of random families', () => {
           expectClose(e.lyapunov!, ((expected[k]!.sub ? 2 : -2) * expected[k]!.k) / expected[k]!.w, { rel: 1e-5 }, 'l1 = ∓2k/ω (analytic)');
         });
       },
-    ), { seed: 14_142, numRuns: 25 });
+    ), repeatable(14_142, 25));
   });
 
   it('finds the fold of y1\' = λ − c + a·y1² mixed by a random rotation with stable modes, with |fold coefficient| = a', () => {
@@ -168,7 +169,7 @@ describe('special points of random families', () => {
         expectClose(Math.abs(trace.events[0]!.foldCoefficient!), a, { rel: 1e-6 }, '|fold coefficient| = a (analytic)');
         expect(trace.branches[0]!.stopped).toBe('left range');
       },
-    ), { seed: 69_314, numRuns: 25 });
+    ), repeatable(69_314, 25));
   });
 
   it('on x\' = y, y\' = λ + b·x + x² + s·x·y finds the fold, and the Hopf point for b < 0 but not the neutral saddle for b > 0', () => {
@@ -207,7 +208,7 @@ equations:
         }
         expect(trace.warnings).toEqual([]);
       },
-    ), { seed: 11_235, numRuns: 40 });
+    ), repeatable(11_235, 40));
   });
 });
 

@@ -13,6 +13,7 @@ import { expectClose } from '../helpers/close.js';
 import { expectAllConverged } from './expectTraced.js';
 import { makeSystem } from '../helpers/handSystem.js';
 import { hopfNormalForm, withStableDirection } from './traceSystems.js';
+import { repeatable } from '../helpers/repeatable.js';
 
 /** fast-check run number, fixed so failures reproduce. */
 const RUN = 31_415;
@@ -42,7 +43,7 @@ describe('traceBranches properties', () => {
         expectClose(events[0]![1], l0 - lf, { abs: 1e-10 * (1 + Math.abs(l0)) }, 'lower fold (analytic)');
         expectClose(events[1]![1], l0 + lf, { abs: 1e-10 * (1 + Math.abs(l0)) }, 'upper fold (analytic)');
       },
-    ), { seed: RUN, numRuns: 30 });
+    ), repeatable(RUN, 30));
   });
 
   it('finds the Hopf point of the shifted normal form with l1 = 2s/ω, swept either way', () => {
@@ -67,7 +68,7 @@ describe('traceBranches properties', () => {
         expectClose(hopf.lyapunov!, (2 * s) / omega, { rel: 1e-6 }, 'l1 = 2s/ω (analytic)');
         expect(hopf.criticality).toBe(s < 0 ? 'supercritical' : 'subcritical');
       },
-    ), { seed: RUN, numRuns: 30 });
+    ), repeatable(RUN, 30));
   });
 
   it('finds the transcritical point of x\' = k(λ − λ0)x − x² and the crossing branch x = k(λ − λ0)', () => {
@@ -88,7 +89,7 @@ describe('traceBranches properties', () => {
         }
         expect(trace.warnings).toEqual([]);
       },
-    ), { seed: RUN, numRuns: 30 });
+    ), repeatable(RUN, 30));
   });
 
   /**
@@ -150,6 +151,6 @@ describe('traceBranches properties', () => {
         expect(Math.max(...halves)).toBeGreaterThan(0);
         expect(trace.warnings).toEqual([]);
       },
-    ), { seed: RUN, numRuns: 30 });
+    ), repeatable(RUN, 30));
   });
 });
