@@ -23,7 +23,6 @@ export function reportStops(ext: ExtendedSystem, walked: WalkedBranch, id: numbe
   stops.forEach((stop, side) => {
     const end = ends[side];
     if (stop === null || stop === 'left range' || stop === 'closed loop' || stop === 'interrupted' || end === undefined) return;
-    const warning = message.traceBranchStopped(id, STOP_WHY[stop], name, end.z[ext.n]!);
-    if (!warnings.includes(warning)) warnings.push(warning);
+    warnings.push(message.traceBranchStopped(id, STOP_WHY[stop], name, end.z[ext.n]!));
   });
 }

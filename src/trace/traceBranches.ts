@@ -106,7 +106,7 @@ export function traceBranches(
       warnings.push(message.traceBranchLimit(settings.maxBranches));
       break;
     }
-    if (note !== undefined && !warnings.includes(note)) warnings.push(note);
+    if (note !== undefined) warnings.push(note);
     const id = branches.length;
     computed = 0;
     // A start at the range end walks one way; other starts run both ways; switched branches walk
@@ -153,7 +153,8 @@ export function traceBranches(
     }
   }
   const events = numberEvents(pending, branches, origins);
-  return { settings: { ...settings }, ...countFromOne(branches, events), warnings, interrupted };
+  // The same warning from several walks (both ends of a branch, a bound reached twice) is said once.
+  return { settings: { ...settings }, ...countFromOne(branches, events), warnings: [...new Set(warnings)], interrupted };
 }
 
 /**

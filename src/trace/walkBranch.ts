@@ -112,8 +112,7 @@ function landPoint(ctx: WalkContext, cur: RawPoint, outside: Float64Array, bound
   if (tangent?.singular === true) {
     t.set(cur.t);
     tangent = { ok: true, singular: true, detSign: 0, detLog: -Infinity };
-    const note = message.traceBoundBranchPoint(ctx.name, bound);
-    if (!ctx.warnings.includes(note)) ctx.warnings.push(note);
+    ctx.warnings.push(message.traceBoundBranchPoint(ctx.name, bound));
   }
   if (tangent === undefined || !tangent.ok) {
     ctx.warnings.push(message.traceLandFailed(ctx.name, bound, result.status, result.residual, result.iterations));

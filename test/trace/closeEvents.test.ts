@@ -13,6 +13,9 @@ import { expectClose } from '../helpers/close.js';
 import { textSystem as system } from './modelFile.js';
 import { repeatable } from '../helpers/repeatable.js';
 
+/** Hopf normal form r' = λr − r³, θ' = 1 in the states a, b (model equations). */
+const UNIT_OSCILLATOR = '  a: lam*a - b - a*(a^2 + b^2)\n  b: a + lam*b - b*(a^2 + b^2)';
+
 /** Traced over λ from −1 to 1 from the origin (four states): exactly one special point, a supercritical Hopf point at λ = 0 with ω = 1. */
 function expectOneHopfAtZero(s: System): void {
   const trace = traceBranches(s, Float64Array.of(-1), traceSettings(0, -1, 1), [new Float64Array(4)]);
@@ -65,8 +68,7 @@ equations:
 states: { a: 0, b: 0, c: 0, d: 0 }
 parameters: { lam: -1, eps: 0.001 }
 equations:
-  a: lam*a - b - a*(a^2 + b^2)
-  b: a + lam*b - b*(a^2 + b^2)
+${UNIT_OSCILLATOR}
   c: (lam - eps)*c - 2*d - c*(c^2 + d^2)
   d: 2*c + (lam - eps)*d - d*(c^2 + d^2)
 `);
@@ -106,8 +108,7 @@ equations:
 states: { a: 0, b: 0, c: 0, d: 0 }
 parameters: { lam: -1 }
 equations:
-  a: lam*a - b - a*(a^2 + b^2)
-  b: a + lam*b - b*(a^2 + b^2)
+${UNIT_OSCILLATOR}
   c: -0.001*c - 2*d
   d: 2*c - 0.001*d
 `);
@@ -122,8 +123,7 @@ equations:
 states: { a: 0, b: 0, x: 0, y: 0 }
 parameters: { lam: -1 }
 equations:
-  a: lam*a - b - a*(a^2 + b^2)
-  b: a + lam*b - b*(a^2 + b^2)
+${UNIT_OSCILLATOR}
   x: x
   y: (lam - 1.005)*y
 `);
