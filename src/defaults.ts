@@ -57,6 +57,9 @@ export const TRACE = {
   branchPointMaxIter: 12,
   /** A start that is a branch point moves this fraction of the range toward `to`. */
   startNudge: 1e-6,
+  /** In the scaled arclength, a state's typical size counts for at least this fraction of |to − from|
+   *  (and at most all of it): src/trace/stateWeights.ts. */
+  smallestStateShare: 0.1,
   /** Offset of a switched branch's first point from the branch point, as a fraction of ds. */
   switchOffset: 0.3,
   /** Eigenvalues with real part below this (relative to max(1, |largest eigenvalue|)) count as stable. */

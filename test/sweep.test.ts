@@ -34,6 +34,33 @@ describe('sweep()', () => {
     }
   });
 
+  it('follows the new branch of a pitchfork whatever the size of the states against the parameter range', () => {
+    // Analytic: x' = (λ/c − 1)x − x³/s² has the pitchfork at λ = c and the new branch |x| = s·√(λ/c − 1).
+    // The equilibria at λ = 2c (x = 0, ±s) give the state its size. x = s·u, λ = c·μ turn every (c, s)
+    // into the same problem; where s is below a tenth of the range 2c (src/trace/stateWeights.ts) the
+    // scaled problem is the same too, so those sweeps must take the same number of points.
+    const counts: number[] = [];
+    for (const [c, s] of [[1, 1], [30, 1], [1e3, 1], [1e5, 1], [1e-3, 1], [1, 1e-3], [0.5, 20]] as const) {
+      const model = loadModel(`states: { x: 0 }\nparameters: { lam: ${c}, c: ${c}, s: ${s} }\nequations:\n  x: (lam/c - 1)*x - x^3/s^2`, 'pitchfork.yaml');
+      const { trace } = sweep(model, { vary: 'lam', from: 0, to: 2 * c });
+      const label = `c = ${c}, s = ${s}`;
+      expect(trace.warnings, label).toEqual([]);
+      expect(trace.events.map((e) => e.type), label).toEqual(['pitchfork']);
+      expect(Math.abs(trace.events[0]!.parameter - c), label).toBeLessThan(1e-10 * c);
+      expect(trace.branches, label).toHaveLength(2);
+      const xs = trace.branches[1]!.points.map((q) => q.state[0]!);
+      expect(Math.min(...xs), label).toBeCloseTo(-s, 8); // both halves, out to the range end
+      expect(Math.max(...xs), label).toBeCloseTo(s, 8);
+      for (const q of trace.branches[1]!.points) {
+        // In u = x/s, μ = λ/c the branch is u² = μ − 1 (well conditioned at the tip too).
+        expect(Math.abs((q.state[0]! / s) ** 2 - (q.parameter / c - 1)), label).toBeLessThan(1e-7);
+      }
+      if (s < 0.1 * 2 * c) counts.push(trace.branches.reduce((sum, b) => sum + b.points.length, 0));
+    }
+    expect(counts).toHaveLength(4);
+    expect(Math.max(...counts) - Math.min(...counts)).toBeLessThanOrEqual(2);
+  });
+
   it('gives every point and special point its own diagnostics: residual, iterations, step, test-function values', () => {
     // Lorenz (1963) from rho = 0 to 30: the pitchfork at rho = 1 (det of the bordered Jacobian),
     // and two subcritical Hopf points at rho = 470/19 (real part of the critical pair) (analytic).
