@@ -4,9 +4,13 @@
  * Equations", §6.3). Near a root the full step is always accepted, so convergence stays quadratic.
  *
  * Stopping rule (checked at every iterate x, before a step is taken):
- *   converged  ⇔  ‖F(x)‖∞ ≤ absTol,
+ *   converged  ⇔  F(x) = 0 exactly,
+ *              or at least minSteps steps were taken (default 0) and: ‖F(x)‖∞ ≤ absTol,
  *              or the last full step satisfied ‖dx‖∞ ≤ absTol·(1 + ‖x‖∞) and ‖F(x)‖∞ ≤ √absTol
  *              (a residual floor set by rounding in badly scaled models).
+ * absTol is in the model's units; a caller whose start is already close (a point between two
+ * points of a branch) asks for one step, which near a regular root makes the error about its
+ * square whatever the units.
  * Other outcomes are statuses, never exceptions:
  *   'non-finite'  F or J has a NaN/Infinity at the current iterate;
  *   'singular'    the LU factorisation has a zero pivot, or the step is not finite;
@@ -22,6 +26,8 @@ export type VectorFunction = (x: Float64Array, out: Float64Array) => void;
 export interface NewtonOptions {
   absTol: number;
   maxIter: number;
+  /** Steps to take before the residual may stop the iteration (unless F is exactly zero). */
+  minSteps?: number;
 }
 
 export interface NewtonDamping {
@@ -65,7 +71,8 @@ export function newton(
   let smallFullStep = false;
   for (let it = 0; ; it++) {
     const res = normInf(f);
-    if (res <= opts.absTol || (smallFullStep && res <= Math.sqrt(opts.absTol))) return done('converged', it, lastStep);
+    const small = res <= opts.absTol || (smallFullStep && res <= Math.sqrt(opts.absTol));
+    if (res === 0 || (small && it >= (opts.minSteps ?? 0))) return done('converged', it, lastStep);
     if (it >= opts.maxIter) return done('max-iter', it, lastStep);
     J(x, jac);
     if (!allFinite(jac)) return done('non-finite', it, lastStep);

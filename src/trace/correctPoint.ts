@@ -7,13 +7,18 @@
  * hyperplane through ẑ orthogonal to t.
  *
  * Stopping rule, checked at every iterate before a step:
- *   converged ⇔ ‖F‖∞ ≤ absTol and (no step taken yet, or the last step ‖dz‖∞ ≤ stepTol),
+ *   converged ⇔ ‖F‖∞ ≤ absTol and (the last step ‖dz‖∞ ≤ stepTol, or no step taken yet and F = 0
+ *            exactly, as on a branch x = 0),
  *            or, after at least two steps, ‖F‖∞ stopped falling (not halved by the last step), the last
  *            step is at the rounding level (‖dz‖∞ ≤ 1e-13·max(1, ‖z‖∞)) and ‖F‖∞ ≤ √absTol.
- * stepTol defaults to √absTol·max(1, ‖z‖∞) (enough while walking: Newton converges quadratically
- * there). Locators pass a small stepTol, and then at least one step is always taken: near a branch
- * point the residual can be below absTol far from the branch (e.g. f = λx − x³ near x = 0), and
- * convergence is only linear, so a small residual alone says little about the position.
+ * stepTol defaults to √absTol·L, L = lengthScale (the sweep range, which the scaled coordinates
+ * make the size of every state too: stateWeights.ts) or else max(1, ‖z‖∞); enough while walking,
+ * where Newton converges quadratically and leaves an error of about absTol·L. Locators pass a
+ * smaller one. A small residual alone says little about the position:
+ * absTol is in the model's own units, so a model of tiny states (concentrations of 1e-6 changing
+ * by 1e-9 per second) can have a residual below it far from the branch, and so can any model near
+ * a branch point (f = λx − x³ near x = 0). The Newton step, measured in the scaled coordinates
+ * (stateWeights.ts), decides.
  * Exactly at a branch point the bordered matrix is singular: a point within absTol is kept there.
  * Failures are statuses: 'non-finite', 'singular' (zero pivot), 'stalled' (a Newton step grew,
  * or the iterate moved farther than `maxDistance` from ẑ: the corrector is leaving the branch),
@@ -33,6 +38,8 @@ export interface CorrectOptions {
   maxDistance: number;
   /** Largest last Newton step ‖dz‖∞ of a converged point; when given, at least one step is taken. */
   stepTol?: number;
+  /** Size of the problem in scaled coordinates that steps are measured against (default max(1, ‖z‖∞)). */
+  lengthScale?: number;
 }
 
 export interface CorrectOutcome {
@@ -59,8 +66,8 @@ export function correctPoint(
     for (let j = 0; j < m; j++) c += t[j]! * (z[j]! - zHat[j]!);
     f[n] = c;
     const residual = normInf(f.subarray(0, n));
-    const scale = Math.max(1, normInf(z));
-    const stepOk = it === 0 ? opts.stepTol === undefined : lastStep <= (opts.stepTol ?? Math.sqrt(opts.absTol) * scale);
+    const scale = opts.lengthScale ?? Math.max(1, normInf(z));
+    const stepOk = it === 0 ? opts.stepTol === undefined && residual === 0 : lastStep <= (opts.stepTol ?? Math.sqrt(opts.absTol) * scale);
     // Rounding floor: only after two steps that no longer reduce ‖F‖ (a tiny step alone can still
     // be large against small components of z, e.g. near the edge of a model's domain).
     const stagnant = it >= 2 && residual >= 0.5 * previousResidual;

@@ -7,10 +7,10 @@
  */
 import { NEWTON, TRACE } from '../defaults.js';
 import { message } from '../errors.js';
-import { newton } from '../solve/newton.js';
 import type { NewtonResult, TraceSettings } from '../types.js';
 import type { ExtendedSystem } from './extendedSystem.js';
 import type { RawPoint } from './rawPoint.js';
+import { solveAt } from './solveAt.js';
 import { startPoint } from './startPoint.js';
 import type { Workspace } from './workspace.js';
 
@@ -18,7 +18,8 @@ export function correctStart(
   ext: ExtendedSystem, work: Workspace, x0: Float64Array, lambda: number, settings: TraceSettings, name: string,
 ): { point: RawPoint; note?: string } | string {
   const { from, to } = settings;
-  const solved = solveAt(ext, x0, lambda, settings);
+  const newtonOpts = { absTol: settings.absTol, maxIter: NEWTON.maxIter };
+  const solved = solveAt(ext, x0, lambda, newtonOpts);
   if (solved.status !== 'converged') {
     return message.traceStartFailed(name, lambda, solved.status, solved.residual, solved.iterations);
   }
@@ -31,21 +32,9 @@ export function correctStart(
   // No unique direction: the start is a branch point. Start a little further into the range
   // instead (a branch point inside the range is then found as usual, from both sides).
   const nudged = lambda + TRACE.startNudge * (to - from);
-  const moved = solveAt(ext, solved.x, nudged, settings);
+  const moved = solveAt(ext, solved.x, nudged, newtonOpts);
   const point = moved.status === 'converged' ? first(moved, nudged) : null;
   if (point === null) return message.traceNoTangent(name, lambda);
   const atEnd = lambda === from || lambda === to;
   return atEnd ? { point, note: message.traceBoundBranchPoint(name, lambda) } : { point };
-}
-
-/** Newton's method for the equilibrium at the fixed parameter value λ. */
-function solveAt(ext: ExtendedSystem, x0: Float64Array, lambda: number, settings: TraceSettings): NewtonResult {
-  const p = ext.p.slice();
-  p[ext.k] = lambda;
-  return newton(
-    (x, out) => ext.system.rhs(x, p, out),
-    (x, out) => ext.system.jacobian(x, p, out),
-    x0,
-    { absTol: settings.absTol, maxIter: NEWTON.maxIter },
-  );
 }

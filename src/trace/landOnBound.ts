@@ -3,9 +3,9 @@
  * λ fixed at the bound λ_b, started from the linear interpolation of the last point inside and the
  * first point outside, so the stored point lies exactly on the bound.
  */
-import { newton } from '../solve/newton.js';
 import type { NewtonResult } from '../types.js';
 import type { ExtendedSystem } from './extendedSystem.js';
+import { solveAt } from './solveAt.js';
 
 export function landOnBound(
   ext: ExtendedSystem, inside: Float64Array, outside: Float64Array, bound: number,
@@ -17,14 +17,6 @@ export function landOnBound(
   const theta = (bound - li) / (lo - li);
   const guess = new Float64Array(ext.m);
   for (let j = 0; j < ext.m; j++) guess[j] = inside[j]! + theta * (outside[j]! - inside[j]!);
-  const p = ext.p.slice();
-  p[ext.k] = bound;
-  const x0 = ext.stateOf(guess);
-  const result = newton(
-    (x, out) => ext.system.rhs(x, p, out),
-    (x, out) => ext.system.jacobian(x, p, out),
-    x0,
-    opts,
-  );
+  const result = solveAt(ext, ext.stateOf(guess), bound, opts);
   return { z: ext.unknownOf(result.x, bound), result };
 }

@@ -19,7 +19,9 @@ export function switchStart(
   const z = new Float64Array(m);
   const zHat = new Float64Array(m);
   for (let j = 0; j < m; j++) z[j] = zStar[j]! + offset * d[j]!;
-  const c = correctPoint(ext, z, zHat, d, { absTol: settings.absTol, maxIter: 2 * settings.maxIter, maxDistance: offset }, work);
+  const c = correctPoint(ext, z, zHat, d, {
+    absTol: settings.absTol, maxIter: 2 * settings.maxIter, maxDistance: offset, lengthScale: Math.abs(settings.to - settings.from),
+  }, work);
   if (c.status !== 'converged') return `the corrector ended with status ${c.status}`;
   const t = new Float64Array(m);
   const tangent = tangentAt(ext, z, d, t, work);

@@ -61,7 +61,9 @@ export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): W
     if (points.length >= budget) return { points, stopped: 'point budget' };
     if (ctx.tick(points.length, cur.z[n]!)) return { points, stopped: 'interrupted' };
     for (let j = 0; j < m; j++) z[j] = cur.z[j]! + ds * cur.t[j]!;
-    const c = correctPoint(ext, z, zHat, cur.t, { absTol: settings.absTol, maxIter: settings.maxIter, maxDistance: ds }, work);
+    const c = correctPoint(ext, z, zHat, cur.t, {
+      absTol: settings.absTol, maxIter: settings.maxIter, maxDistance: ds, lengthScale: Math.abs(settings.to - settings.from),
+    }, work);
     const tangent = c.status === 'converged' ? tangentAt(ext, z, cur.t, tNew, work) : undefined;
     if (tangent === undefined || !tangent.ok || dot(cur.t, tNew) < minTurnCos) {
       sawNonFinite ||= c.status === 'non-finite';

@@ -68,6 +68,20 @@ describe('newton', () => {
     expect(r.residual).toBe(0);
   });
 
+  it('takes minSteps steps before a small residual may stop it, except at an exact root', () => {
+    // F(x) = 1e-12·(x − 1e-6): the residual at x = 0 is 1e-18, under absTol, yet x is 100 % off.
+    // Linear, so one Newton step lands on the root x = 1e-6 (analytic).
+    const F: VectorFunction = (x, o) => { o[0] = 1e-12 * (x[0]! - 1e-6); };
+    const J: VectorFunction = (_x, o) => { o[0] = 1e-12; };
+    expect(newton(F, J, Float64Array.of(0), opts).x[0]).toBe(0);
+    const stepped = newton(F, J, Float64Array.of(0), { ...opts, minSteps: 1 });
+    expect(stepped.status).toBe('converged');
+    expect(stepped.iterations).toBe(1);
+    expect(stepped.x[0]).toBeCloseTo(1e-6, 20);
+    const exact = newton(F, J, Float64Array.of(1e-6), { ...opts, minSteps: 1 });
+    expect(exact.iterations).toBe(0);
+  });
+
   it('returns "singular" when the Jacobian is singular', () => {
     // F(x, y) = (x + y − 1, 2x + 2y − 3): rows of J are dependent (analytic: det J = 0), no solution.
     const F: VectorFunction = (x, out) => {

@@ -220,6 +220,34 @@ describe('traceBranches switching at a pitchfork', () => {
       }
     }
   });
+
+  it('follows the same branches in any units: tiny states and right-hand sides as well as large ones', () => {
+    // Analytic: x = s·u, λ = c·μ turn x' = (λ/c − 1)x − x³/s² into u' = (μ − 1)u − u³ for every (c, s)
+    // (a time scale apart), so with starts x = 0 at λ = 0 and x = −s at λ = 2c, as the equilibrium
+    // search may give, every choice must trace the same two branches with the same points. With
+    // c = 1e-3 and s = 1e-6 the right-hand side is below 1e-9 near the branch point, under the
+    // corrector's residual tolerance: only the Newton step can tell the branch from a point beside it.
+    const counts = [[1e3, 1], [1, 1e-4], [1e-3, 1e-6]].map(([c, s]) => {
+      const model = textSystem(`states: { x: 0 }\nparameters: { lam: 0, c: ${c}, s: ${s} }\nequations:\n  x: (lam/c - 1)*x - x^3/s^2`);
+      const trace = traceBranches(model, Float64Array.of(0, c!, s!), traceSettings(0, 0, 2 * c!), [
+        new Float64Array(1), { state: Float64Array.of(-s!), parameter: 2 * c! },
+      ]);
+      const label = `c = ${c}, s = ${s}`;
+      expect(trace.warnings, label).toEqual([]);
+      expect(trace.events.map((e) => e.type), label).toEqual(['pitchfork']);
+      expect(trace.branches, label).toHaveLength(2);
+      const xs = trace.branches[1]!.points.map((q) => q.state[0]!);
+      expect(Math.min(...xs) / s!, label).toBeCloseTo(-1, 8);
+      expect(Math.max(...xs) / s!, label).toBeCloseTo(1, 8);
+      for (const q of trace.branches[1]!.points) {
+        // In the scaled variables u = x/s, μ = λ/c the branch is u² = μ − 1 (well conditioned at the tip too).
+        expect(Math.abs((q.state[0]! / s!) ** 2 - (q.parameter / c! - 1)), label).toBeLessThan(1e-7);
+      }
+      return trace.branches.map((b) => b.points.length);
+    });
+    expect(counts[1]).toEqual(counts[0]);
+    expect(counts[2]).toEqual(counts[0]);
+  });
 });
 
 describe('traceBranches at the edge of the model\'s domain', () => {
