@@ -1,8 +1,13 @@
 /**
  * Linear stability and type of an equilibrium from its Jacobian J (n×n, row-major, finite).
  *
- * Eigenvalue tests use tol = PLANAR_TOL·max(1, ‖J‖∞) (common practice): Re λ < −tol stable,
- * Re λ > tol unstable, otherwise on the imaginary axis; |λ| ≤ tol counts as a zero eigenvalue.
+ * Eigenvalue tests use tol = PLANAR_TOL·scale (common practice): Re λ < −tol stable, Re λ > tol
+ * unstable, otherwise on the imaginary axis; |λ| ≤ tol counts as a zero eigenvalue. The scale is
+ * the size of the spectrum, max |λ|, and at least ROUNDING_SHARE·‖J‖∞ (what rounding can leave of a
+ * zero eigenvalue): both stay the same when a state changes its unit (J → DJD⁻¹, D diagonal), and
+ * scale with J when time does, so the type does not depend on the units. (‖J‖∞ alone does: a
+ * concentration in mol/L beside a pressure in Pa gives entries 1e6 apart and a norm far above the
+ * eigenvalues.)
  *
  * Type words:
  *   n = 1: 'stable' (f' < 0), 'unstable' (f' > 0), 'degenerate' (f' ≈ 0).
@@ -26,6 +31,9 @@ function matrixNormInf(J: Float64Array, n: number): number {
   }
   return m;
 }
+
+/** Rounding floor of the eigenvalue scale, relative to ‖J‖∞ (PLANAR_TOL times it is a few units of rounding). */
+const ROUNDING_SHARE = 1e-6;
 
 function plural(k: number, word: string): string {
   return `${k} ${word}${k === 1 ? '' : 's'}`;
@@ -87,9 +95,10 @@ export function classifyEquilibrium(
   residual: number,
   iterations: number,
 ): Equilibrium {
-  const scale = Math.max(1, matrixNormInf(J, n));
-  const tol = PLANAR_TOL * scale;
   const values = computeEigenvalues(J, n);
+  const radius = values.reduce((r, v) => Math.max(r, Math.hypot(v.re, v.im)), 0);
+  const scale = Math.max(radius, ROUNDING_SHARE * matrixNormInf(J, n));
+  const tol = PLANAR_TOL * scale;
   const unstableDimension = values.filter((v) => v.re > tol).length;
   const stable = values.every((v) => v.re < -tol);
   let type: string;

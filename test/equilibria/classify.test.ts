@@ -111,6 +111,26 @@ describe('classifyEquilibrium', () => {
     expect(Math.abs(eq.eigenvalues[0]!.re)).toBeLessThan(1e-12);
   });
 
+  it('gives the same type whatever the units of the states and of time', () => {
+    // Analytic: new state units x → Dx turn J into DJD⁻¹ and a new time unit turns it into cJ; both
+    // keep the eigenvalues (up to the factor c), so the type must not change.
+    const cases: [number[], string][] = [
+      [[-1, -1.6, -1.6, -1], 'saddle'], // λ = 0.6, −2.6
+      [[-1, 0.5, 0.2, -2], 'stable node'], // λ = (−3 ± √1.4)/2
+      [[-0.1, -1, 1, -0.1], 'stable focus'], // λ = −0.1 ± i
+      [[0, -1, 1, 0], 'centre-type'], // λ = ± i
+      [[0, 1, 0, -1], 'degenerate'], // λ = 0, −1
+    ];
+    for (const [j, type] of cases) {
+      for (const [d1, d2] of [[1, 1], [1e-3, 1e3], [1e4, 1e-2]] as const) {
+        for (const c of [1, 1e-9, 1e6]) {
+          const scaled = [c * j[0]!, (c * j[1]! * d1) / d2, (c * j[2]! * d2) / d1, c * j[3]!];
+          expect(classify2(scaled).type, `${type}, D = diag(${d1}, ${d2}), c = ${c}`).toBe(type);
+        }
+      }
+    }
+  });
+
   it('calls one-dimensional equilibria stable, unstable or degenerate by the sign of f\'', () => {
     const at = (d: number) => classifyEquilibrium(Float64Array.of(d), 1, Float64Array.of(0), 0, 0).type;
     expect(at(-2)).toBe('stable');
