@@ -3,20 +3,25 @@
  * finds in a box (Farrell, Birkisson & Funke 2015; see deflation.ts).
  *
  *  1. Starts: the guess (default: the model's start values) first, then EQUILIBRIA.starts points
- *     of a shifted Halton sequence over the box (default: around the guess, see boxAround).
+ *     of a shifted Halton sequence over the box (default: around the guess, see boxAround), then a
+ *     quarter as many over the guess's own scale (guessScaleBox) where that is narrower.
  *  2. From each start, Newton on the deflated residual G = M·F; when it converges, the root is
  *     polished by plain Newton on F (so reported residuals are ‖F‖∞, not ‖G‖∞), deflated, and the
  *     same start is tried again (at most EQUILIBRIA.solvesPerStart times).
- *  3. A polished root is kept when Newton on F converged (newton.ts stopping rule), it is not a
- *     duplicate (‖a − b‖∞ ≤ duplicateTol·max(1, ‖a‖∞, ‖b‖∞)) and it lies in the box widened by
- *     boxTolerance of its width on each side. Roots outside are still deflated, never reported.
+ *  3. A polished root is kept when Newton on F converged (newton.ts stopping rule, at least one
+ *     step), it is not a duplicate (|a_i − b_i| ≤ duplicateTol·max(|a_i|, |b_i|, σ_i) for every
+ *     state i) and it lies in the box widened by boxTolerance of its width on each side. Roots
+ *     outside are still deflated, never reported.
+ * Typical sizes σ_i (deflation distances and duplicates are measured in them): the largest |x_i|
+ * over the guess and the roots found so far, or 1 where all of these are 0. A model whose states
+ * are all of size 1e-3 is then searched just as one of size 1 (the box aside).
  *  4. Each kept root is classified from its Jacobian (a non-finite Jacobian drops the root).
  * Total Newton iterations are capped by EQUILIBRIA.iterationBudget; the diagnostics say whether
  * the cap was reached. Non-finite values at a start end that start's solve ('non-finite' status).
  * Result order: lexicographic in the states (first state, then second, …; near-equal coordinates tie).
  */
 import { EQUILIBRIA, NEWTON } from '../defaults.js';
-import { allFinite, normInf } from '../linalg/norm.js';
+import { allFinite } from '../linalg/norm.js';
 import { newton, type VectorFunction } from '../solve/newton.js';
 import type { Equilibrium, SolveStatus, System } from '../types.js';
 import { classifyEquilibrium } from './classify.js';
@@ -66,10 +71,18 @@ interface Root {
   iterations: number;
 }
 
-function sameRoot(a: Float64Array, b: Float64Array): boolean {
-  let d = 0;
-  for (let i = 0; i < a.length; i++) d = Math.max(d, Math.abs(a[i]! - b[i]!));
-  return d <= EQUILIBRIA.duplicateTol * Math.max(1, normInf(a), normInf(b));
+function sameRoot(a: Float64Array, b: Float64Array, sizes: Float64Array): boolean {
+  for (let i = 0; i < a.length; i++) {
+    if (Math.abs(a[i]! - b[i]!) > EQUILIBRIA.duplicateTol * Math.max(Math.abs(a[i]!), Math.abs(b[i]!), sizes[i]!)) return false;
+  }
+  return true;
+}
+
+/** σ_i: the largest |x_i| over the given states, or 1 where they are all 0. */
+function typicalSizes(states: readonly Float64Array[], n: number): Float64Array {
+  const size = new Float64Array(n);
+  for (const x of states) for (let i = 0; i < n; i++) size[i] = Math.max(size[i]!, Math.abs(x[i]!));
+  return size.map((v) => (v > 0 && Number.isFinite(v) ? v : 1));
 }
 
 function insideBox(x: Float64Array, box: Box): boolean {
@@ -90,11 +103,37 @@ function lexicographic(a: Equilibrium, b: Equilibrium): number {
   return 0;
 }
 
+/**
+ * The box at the scale of the guess: ±boxRelative·|g_i| around each nonzero guess value g_i that
+ * gives a narrower interval than the box (clipped to it), the box's own interval elsewhere; null
+ * when no state is narrower. A guess of 1e-3 (a concentration in mol/L, say) in the default box of
+ * ±10 says the roots are of that size too, and starts spread over ±10 rarely land near them.
+ */
+function guessScaleBox(guess: Float64Array, box: Box): Box | null {
+  const lo = box.lo.slice();
+  const hi = box.hi.slice();
+  let narrower = false;
+  for (let i = 0; i < guess.length; i++) {
+    const h = EQUILIBRIA.boxRelative * Math.abs(guess[i]!);
+    if (!(h > 0) || 2 * h >= box.hi[i]! - box.lo[i]!) continue;
+    lo[i] = Math.max(box.lo[i]!, guess[i]! - h);
+    hi[i] = Math.min(box.hi[i]!, guess[i]! + h);
+    narrower = true;
+  }
+  return narrower ? { lo, hi } : null;
+}
+
 export function findEquilibria(system: System, p: Float64Array, opts: FindEquilibriaOptions = {}): EquilibriumSearch {
   const n = system.n;
   const guess = opts.guess ?? Float64Array.from(system.info.states.map((s) => s.start));
   const box = opts.box ?? boxAround(guess, EQUILIBRIA.boxRelative, EQUILIBRIA.boxAbsolute);
-  const starts = [guess, ...startPoints(box, opts.starts ?? EQUILIBRIA.starts, opts.stream ?? 1)];
+  const count = opts.starts ?? EQUILIBRIA.starts;
+  const inner = guessScaleBox(guess, box);
+  const starts = [
+    guess,
+    ...startPoints(box, count, opts.stream ?? 1),
+    ...(inner === null ? [] : startPoints(inner, Math.ceil(count / 4), opts.stream ?? 1)),
+  ];
   const F: VectorFunction = (x, out) => system.rhs(x, p, out);
   const J: VectorFunction = (x, out) => system.jacobian(x, p, out);
   const settings = { power: EQUILIBRIA.deflationPower, shift: EQUILIBRIA.deflationShift };
@@ -106,8 +145,8 @@ export function findEquilibria(system: System, p: Float64Array, opts: FindEquili
   };
   const deflated: Float64Array[] = [];
   const kept: Root[] = [];
-  const solve = (f: VectorFunction, j: VectorFunction, x0: Float64Array) => {
-    const r = newton(f, j, x0, { absTol: NEWTON.absTol, maxIter: Math.min(NEWTON.maxIter, d.iterationBudget - d.iterations) });
+  const solve = (f: VectorFunction, j: VectorFunction, x0: Float64Array, minSteps = 0) => {
+    const r = newton(f, j, x0, { absTol: NEWTON.absTol, maxIter: Math.min(NEWTON.maxIter, d.iterationBudget - d.iterations), minSteps });
     d.iterations += r.iterations;
     return r;
   };
@@ -118,17 +157,18 @@ export function findEquilibria(system: System, p: Float64Array, opts: FindEquili
         d.budgetExhausted = true;
         break search;
       }
-      const { G, JG } = deflate(F, J, deflated, settings);
+      const sizes = typicalSizes([guess, ...deflated], n);
+      const { G, JG } = deflate(F, J, deflated, settings, sizes);
       const r = solve(G, JG, start);
       d.solves += 1;
       d.outcomes[r.status] += 1;
       if (r.status !== 'converged') break;
-      const polished = solve(F, J, r.x);
+      const polished = solve(F, J, r.x, 1);
       if (polished.status !== 'converged') {
         d.polishFailed += 1;
         break;
       }
-      if (deflated.some((x) => sameRoot(x, polished.x))) {
+      if (deflated.some((x) => sameRoot(x, polished.x, sizes))) {
         d.duplicates += 1;
         break;
       }

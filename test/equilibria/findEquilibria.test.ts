@@ -59,6 +59,57 @@ describe('findEquilibria', () => {
     expect(diagnostics.iterations).toBeLessThanOrEqual(diagnostics.iterationBudget);
   });
 
+  it('finds the same three toggle-switch equilibria with the states in other units', () => {
+    // U = k1·u, V = k2·v turn the toggle switch above into U' = k1·a1/(1 + (V/k2)²) − U,
+    // V' = k2·a2/(1 + (U/k1)²) − V; its equilibria are the analytic ones above times (k1, k2).
+    // The guess (k1, k2) is the unscaled (1, 1) in the new units. (States far below 1e-3 meet the
+    // absolute residual tolerance of 1e-10 before this accuracy.)
+    const r = Math.sqrt(24);
+    for (const [k1, k2] of [[1e-3, 1e-3], [1e-3, 1e3], [1e4, 1e-2], [1e2, 1e-3]] as const) {
+      const scaled = makeSystem({
+        n: 2,
+        states: { U: k1, V: k2 },
+        parameters: { a1: 10, a2: 10 },
+        rhs: (x, p, out) => {
+          out[0] = (k1 * p[0]!) / (1 + (x[1]! / k2) ** 2) - x[0]!;
+          out[1] = (k2 * p[1]!) / (1 + (x[0]! / k1) ** 2) - x[1]!;
+        },
+        jacobian: (x, p, out) => {
+          out[0] = -1;
+          out[1] = (-2 * k1 * p[0]! * (x[1]! / k2 ** 2)) / (1 + (x[1]! / k2) ** 2) ** 2;
+          out[2] = (-2 * k2 * p[1]! * (x[0]! / k1 ** 2)) / (1 + (x[0]! / k1) ** 2) ** 2;
+          out[3] = -1;
+        },
+      });
+      const { equilibria } = findEquilibria(scaled, nominalParameters(scaled));
+      expect(equilibria, `k = ${k1}, ${k2}`).toHaveLength(3);
+      const expected = [[5 - r, 5 + r], [2, 2], [5 + r, 5 - r]];
+      equilibria.forEach((e, j) => {
+        expect(Math.abs(e.state[0]! / k1 - expected[j]![0]!), `k = ${k1}, ${k2}`).toBeLessThan(1e-9);
+        expect(Math.abs(e.state[1]! / k2 - expected[j]![1]!), `k = ${k1}, ${k2}`).toBeLessThan(1e-9);
+      });
+      expect(equilibria.map((e) => e.type), `k = ${k1}, ${k2}`).toEqual(["stable node", "saddle", "stable node"]);
+    }
+  });
+
+  it('finds all three equilibria of x\' = x − x³/s² however small s is against 1', () => {
+    // Analytic: x = 0 and x = ±s. Guess 0 carries no size; the roots found give it. (Below about
+    // s = 1e-8 the right-hand side falls under the residual tolerance of 1e-10 everywhere near the
+    // roots, a limit of the absolute tolerance.)
+    for (const s of [1, 1e-3, 1e-6]) {
+      const pitchfork = makeSystem({
+        n: 1,
+        states: { x: 0 },
+        parameters: { s },
+        rhs: (x, p, out) => { out[0] = x[0]! - x[0]! ** 3 / p[0]! ** 2; },
+        jacobian: (x, p, out) => { out[0] = 1 - (3 * x[0]! ** 2) / p[0]! ** 2; },
+      });
+      const { equilibria } = findEquilibria(pitchfork, nominalParameters(pitchfork));
+      expect(equilibria.map((e) => e.state[0]! / s), `s = ${s}`).toHaveLength(3);
+      equilibria.forEach((e, j) => expect(Math.abs(e.state[0]! / s - (j - 1))).toBeLessThan(1e-9));
+    }
+  });
+
   it('finds the single equilibrium of the toggle switch when it is monostable', () => {
     // Analytic: at a1 = a2 = 1 only the symmetric state exists: u³ + u − 1 = 0 (Cardano: u ≈ 0.6823);
     // the asymmetric factor u² − u + 1 (same elimination with a = 1) has no real root.
