@@ -61,6 +61,31 @@ describe('sweep()', () => {
     expect(Math.max(...counts) - Math.min(...counts)).toBeLessThanOrEqual(2);
   });
 
+  it('finds the Brusselator\'s Hopf point whatever the units of its states', () => {
+    // Brusselator (Prigogine & Lefever 1968) with x counted in units k1 and y in units k2 (x = k1·x₁,
+    // y = k2·y₁): the steady state is (k1·a, k2·b/a) and the Hopf point stays at b = 1 + a² = 2 with
+    // ω = a = 1 (analytic: det J = a² there); the sign of the first Lyapunov coefficient cannot
+    // depend on units.
+    for (const [k1, k2] of [[1e-9, 1e-9], [1e-3, 1e3], [1, 1], [1e6, 1e-2]] as const) {
+      const model = loadModel([
+        `states: { x: { start: ${k1} }, y: { start: ${2 * k2} } }`,
+        `parameters: { b: 1.5, a: 1, k1: ${k1}, k2: ${k2} }`,
+        'equations:',
+        '  x: k1*(a - (b + 1)*(x/k1) + (x/k1)^2*(y/k2))',
+        '  y: k2*(b*(x/k1) - (x/k1)^2*(y/k2))',
+      ].join('\n'), 'brusselator-units.yaml');
+      const { trace, report } = sweep(model, { vary: 'b', from: 0.5, to: 4.5 });
+      const label = `k = ${k1}, ${k2}`;
+      expect(trace.warnings, label).toEqual([]);
+      expect(report.events.map((e) => [e.type, e.criticality]), label).toEqual([['hopf', 'supercritical']]);
+      const hopf = trace.events[0]!;
+      expect(Math.abs(hopf.parameter - 2), label).toBeLessThan(1e-10);
+      expect(hopf.state[0]! / k1, label).toBeCloseTo(1, 8);
+      expect(hopf.state[1]! / k2, label).toBeCloseTo(2, 8);
+      expect(report.events[0]!.frequency, label).toBeCloseTo(1, 8);
+    }
+  });
+
   it('gives every point and special point its own diagnostics: residual, iterations, step, test-function values', () => {
     // Lorenz (1963) from rho = 0 to 30: the pitchfork at rho = 1 (det of the bordered Jacobian),
     // and two subcritical Hopf points at rho = 470/19 (real part of the critical pair) (analytic).
