@@ -86,6 +86,26 @@ describe('sweep()', () => {
     }
   });
 
+  it('follows a state that grows where no start shows its size once the model gives its typical size', () => {
+    // Analytic: x' = 16e6·(λ(1 − λ))² − x has the single branch x = 16e6·(λ(1 − λ))², 0 at both ends
+    // and at the nominal λ = 0, 1e6 at λ = 1/2. With start value 0 nothing tells the sweep that x is of
+    // size 1e6, the branch shoots up from the start and the warning says what to do.
+    const text = (start: number) => `states: { x: { start: ${start} } }\nparameters: { lam: 0 }\nequations:\n  x: 16e6*(lam*(1 - lam))^2 - x`;
+    const blind = sweep(loadModel(text(0), 'hump.yaml'), { vary: 'lam', from: 0, to: 1 });
+    expect(blind.trace.warnings.some((w) => w.includes('give it a start value of that size'))).toBe(true);
+    const { trace } = sweep(loadModel(text(1e6), 'hump.yaml'), { vary: 'lam', from: 0, to: 1 });
+    expect(trace.warnings).toEqual([]);
+    expect(trace.branches).toHaveLength(1);
+    const points = trace.branches[0]!.points;
+    expect(points[0]!.parameter).toBe(0);
+    expect(points[points.length - 1]!.parameter).toBe(1);
+    for (const q of points) {
+      const l = q.parameter;
+      expect(Math.abs(q.state[0]! - 16e6 * (l * (1 - l)) ** 2)).toBeLessThan(1e-9 * 1e6);
+    }
+    expect(Math.max(...points.map((q) => q.state[0]!))).toBeGreaterThan(0.99e6); // through the top
+  });
+
   it('gives every point and special point its own diagnostics: residual, iterations, step, test-function values', () => {
     // Lorenz (1963) from rho = 0 to 30: the pitchfork at rho = 1 (det of the bordered Jacobian),
     // and two subcritical Hopf points at rho = 470/19 (real part of the critical pair) (analytic).
