@@ -18,10 +18,10 @@
  *     real unstable eigenvalues that merge into a complex pair change the count without flipping the
  *     sign or crossing. Neither is reported. (A neutral saddle inside the same step as a Hopf point
  *     cancels the sign change; the crossing pair still shows it.)
- *  2. locate: `crossingFrequency` matches each complex eigenvalue at P0 with the nearest one at P1 and
- *     takes a matched pair whose real part changes sign (a pair nearer the axis that does not cross
- *     is passed over; without such a match, `criticalPair` at P0, else P1); ω is the mean of its
- *     frequencies at P0 and P1. The root is located along the branch on the real part of the
+ *  2. locate: `crossingFrequency` matches the complex eigenvalues at P0 with those at P1
+ *     (`matchComplex`: nearest pairs first, each eigenvalue used once) and takes a matched pair whose
+ *     real part changes sign (a pair nearer the axis that does not cross is passed over; without such
+ *     a match, `criticalPair` at P0, else P1); ω is the mean of its frequencies at P0 and P1. The root is located along the branch on the real part of the
  *     complex eigenvalue nearest iω
  *     (src/trace/pairRealPart.ts), which is smooth there, not on hopfTest. The bracket is dropped
  *     unless that real part changes sign between P0 and P1.
@@ -66,27 +66,44 @@ export function criticalPair(eigs: readonly Eigenvalue[], tol: number): Eigenval
 }
 
 /**
+ * Matches the eigenvalues with Im > tol of two nearby matrices (the same branch a step apart): of all
+ * pairs (v before, w after), the nearest first, each eigenvalue used at most once. Matching each
+ * eigenvalue with its own nearest instead can give two of them the same partner, and when a crossing
+ * pair lies about as far from its own next value as from a damped mode beside it (−0.0328 + 1.9757i
+ * → 0.0072 + 1.9757i beside −0.001 + 2i: 0.04 either way), rounding then decided whether the
+ * crossing was seen.
+ */
+export function matchComplex(before: readonly Eigenvalue[], after: readonly Eigenvalue[], tol: number): [Eigenvalue, Eigenvalue][] {
+  const candidates: { d: number; i: number; j: number }[] = [];
+  before.forEach((v, i) => {
+    if (!(v.im > tol)) return;
+    after.forEach((w, j) => {
+      if (w.im > tol) candidates.push({ d: Math.hypot(w.re - v.re, w.im - v.im), i, j });
+    });
+  });
+  candidates.sort((a, b) => a.d - b.d);
+  const usedBefore = new Set<number>();
+  const usedAfter = new Set<number>();
+  const matches: [Eigenvalue, Eigenvalue][] = [];
+  for (const { i, j } of candidates) {
+    if (usedBefore.has(i) || usedAfter.has(j)) continue;
+    usedBefore.add(i);
+    usedAfter.add(j);
+    matches.push([before[i]!, after[j]!]);
+  }
+  return matches;
+}
+
+/**
  * The frequency of the complex pair that crosses the imaginary axis between two consecutive points
- * (step 2 of the file comment): each eigenvalue with Im > tol before is matched with the nearest one
- * with Im > tol after; of the matches whose real parts have opposite signs, the one nearest the
- * axis before. Null when no match crosses.
+ * (step 2 of the file comment): of the matches (matchComplex) whose real parts have opposite signs,
+ * the one nearest the axis before. Null when no match crosses.
  */
 export function crossingFrequency(before: readonly Eigenvalue[], after: readonly Eigenvalue[], tol: number): number | null {
   let best: { distance: number; omega: number } | null = null;
-  for (const v of before) {
-    if (!(v.im > tol)) continue;
-    let match: Eigenvalue | null = null;
-    let gap = Infinity;
-    for (const w of after) {
-      if (!(w.im > tol)) continue;
-      const d = Math.hypot(w.re - v.re, w.im - v.im);
-      if (d < gap) {
-        gap = d;
-        match = w;
-      }
-    }
-    if (match === null || !(v.re * match.re < 0)) continue;
-    if (best === null || Math.abs(v.re) < best.distance) best = { distance: Math.abs(v.re), omega: (v.im + match.im) / 2 };
+  for (const [v, w] of matchComplex(before, after, tol)) {
+    if (!(v.re * w.re < 0)) continue;
+    if (best === null || Math.abs(v.re) < best.distance) best = { distance: Math.abs(v.re), omega: (v.im + w.im) / 2 };
   }
   return best === null ? null : best.omega;
 }

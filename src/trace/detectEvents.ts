@@ -17,7 +17,7 @@ import { IMAG_TOL, TRACE } from '../defaults.js';
 import { eigenvalues } from '../linalg/eig.js';
 import type { Eigenvalue, EventType } from '../types.js';
 import type { ExtendedSystem } from './extendedSystem.js';
-import { criticalPair, crossingFrequency, hopfBetween } from '../detect/hopfTest.js';
+import { criticalPair, crossingFrequency, hopfBetween, matchComplex } from '../detect/hopfTest.js';
 import { pairRealPart } from './pairRealPart.js';
 import { locateBranchPoint } from './locateBranchPoint.js';
 import { locateOnBranch, type BranchTest, type Located } from './locateOnBranch.js';
@@ -136,20 +136,14 @@ export function detectEvents(
 }
 
 /**
- * The frequency of a complex pair with |Re| within the stability threshold at `at` whose nearest
- * match at `beside` has |Re| above it (so the pair leaves the axis along the branch), or null.
+ * The frequency of a complex pair with |Re| within the stability threshold at `at` whose match at
+ * `beside` (matchComplex) has |Re| above it (so the pair leaves the axis along the branch), or null.
  */
 function pairOnAxis(at: readonly Eigenvalue[], beside: readonly Eigenvalue[]): number | null {
   const scale = Math.max(1, size(at));
   const threshold = TRACE.stabilityTol * scale;
-  const imagTol = IMAG_TOL * (1 + scale);
-  for (const v of at) {
-    if (!(v.im > imagTol) || !(Math.abs(v.re) <= threshold)) continue;
-    let match: Eigenvalue | null = null;
-    for (const w of beside) {
-      if (w.im > imagTol && (match === null || Math.hypot(w.re - v.re, w.im - v.im) < Math.hypot(match.re - v.re, match.im - v.im))) match = w;
-    }
-    if (match !== null && Math.abs(match.re) > TRACE.stabilityTol * Math.max(1, size(beside))) return v.im;
+  for (const [v, match] of matchComplex(at, beside, IMAG_TOL * (1 + scale))) {
+    if (Math.abs(v.re) <= threshold && Math.abs(match.re) > TRACE.stabilityTol * Math.max(1, size(beside))) return v.im;
   }
   return null;
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { complexUnstableCount, criticalPair, hopfBetween, hopfTest } from '../../src/detect/hopfTest.js';
+import { complexUnstableCount, criticalPair, crossingFrequency, hopfBetween, hopfTest } from '../../src/detect/hopfTest.js';
 import { locateRoot } from '../../src/detect/locateRoot.js';
 import { eigenvalues } from '../../src/linalg/eig.js';
 import type { Eigenvalue } from '../../src/types.js';
@@ -76,5 +76,19 @@ describe('Hopf detection between branch points', () => {
     const eigs = [...pair(-2, 5), ...pair(1e-9, 0.7), ...real(0)];
     expect(criticalPair(eigs, 1e-8)).toEqual({ re: 1e-9, im: 0.7 });
     expect(criticalPair(real(1, 2), 1e-8)).toBeNull();
+  });
+
+  it('sees the crossing pair when it lies as far from its next value as from a damped mode beside it', () => {
+    // The step over the Hopf point λ = 0 of an oscillator (λ ± 1.9757i) beside a damped mode
+    // (−0.001 ± 2i) that a random property run met: −0.0328 + 1.9757i moves to 0.0072 + 1.9757i,
+    // 0.04 away, and the damped mode's next value is 0.03999999999999992 away from it (0.0318² + 0.0243²
+    // = 0.04², to rounding), so matching each eigenvalue with its nearest missed the crossing. The
+    // damped mode's own match (1e-15 away) comes first, so the crossing pair keeps its next value.
+    const before = [...pair(-0.001, 2), ...pair(-0.03279999999999967, 1.9757356228186245)];
+    const after = [...pair(0.007200000000000331, 1.9757356228186245), ...pair(-0.0010000000000000005, 1.9999999999999991)];
+    expect(crossingFrequency(before, after, 1e-8)).toBeCloseTo(1.9757356228186245, 14);
+    expect(hopfBetween(before, after, 1e-8)).toBe(true);
+    // A pair nearer the axis that does not cross is passed over (analytic: only the second pair changes sign).
+    expect(crossingFrequency([...pair(-1e-6, 3), ...pair(-0.5, 1)], [...pair(-1e-6, 3), ...pair(0.5, 1)], 1e-8)).toBeCloseTo(1, 14);
   });
 });
