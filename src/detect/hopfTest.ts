@@ -14,17 +14,18 @@
  * e0, e1):
  *  1. detect: `hopfBetween(e0, e1, tol)` — the number of complex eigenvalues with positive real
  *     part (`complexUnstableCount`) changes AND hopfTest changes sign or a complex pair is seen to
- *     cross (`crossingFrequency`). A neutral saddle flips the sign without changing that count; two
+ *     cross (`crossingMatch`). A neutral saddle flips the sign without changing that count; two
  *     real unstable eigenvalues that merge into a complex pair change the count without flipping the
  *     sign or crossing. Neither is reported. (A neutral saddle inside the same step as a Hopf point
  *     cancels the sign change; the crossing pair still shows it.)
- *  2. locate: `crossingFrequency` matches the complex eigenvalues at P0 with those at P1
+ *  2. locate: `crossingMatch` matches the complex eigenvalues at P0 with those at P1
  *     (`matchComplex`: nearest pairs first, each eigenvalue used once) and takes a matched pair whose
- *     real part changes sign (a pair nearer the axis that does not cross is passed over; without such
- *     a match, `criticalPair` at P0, else P1); ω is the mean of its frequencies at P0 and P1. The root is located along the branch on the real part of the
- *     complex eigenvalue nearest iω
- *     (src/trace/pairRealPart.ts), which is smooth there, not on hopfTest. The bracket is dropped
- *     unless that real part changes sign between P0 and P1.
+ *     real part changes sign (a pair nearer the axis that does not cross is passed over). The root is
+ *     located along the branch on the real part of that eigenvalue, followed from its value at P0
+ *     to its value at P1 (src/trace/pairRealPart.ts), which is smooth there, not on hopfTest. Without
+ *     a crossing match (hopfTest flipped alone), the eigenvalue followed is the one nearest iω, ω the
+ *     frequency of `criticalPair` at P0, else P1, and the bracket is dropped unless its real part
+ *     changes sign between P0 and P1.
  * src/trace/describeEvent.ts then computes the first Lyapunov coefficient at the located point
  * (`lyapunovCoefficient`, hopfCoefficient.ts).
  */
@@ -95,22 +96,22 @@ export function matchComplex(before: readonly Eigenvalue[], after: readonly Eige
 }
 
 /**
- * The frequency of the complex pair that crosses the imaginary axis between two consecutive points
+ * The complex eigenvalue that crosses the imaginary axis between two consecutive points, at both
  * (step 2 of the file comment): of the matches (matchComplex) whose real parts have opposite signs,
  * the one nearest the axis before. Null when no match crosses.
  */
-export function crossingFrequency(before: readonly Eigenvalue[], after: readonly Eigenvalue[], tol: number): number | null {
-  let best: { distance: number; omega: number } | null = null;
+export function crossingMatch(before: readonly Eigenvalue[], after: readonly Eigenvalue[], tol: number): [Eigenvalue, Eigenvalue] | null {
+  let best: [Eigenvalue, Eigenvalue] | null = null;
   for (const [v, w] of matchComplex(before, after, tol)) {
     if (!(v.re * w.re < 0)) continue;
-    if (best === null || Math.abs(v.re) < best.distance) best = { distance: Math.abs(v.re), omega: (v.im + w.im) / 2 };
+    if (best === null || Math.abs(v.re) < Math.abs(best[0].re)) best = [v, w];
   }
-  return best === null ? null : best.omega;
+  return best;
 }
 
 /** The detection rule of step 1 in the file comment, for consecutive branch points. */
 export function hopfBetween(before: readonly Eigenvalue[], after: readonly Eigenvalue[], tol: number): boolean {
   if (complexUnstableCount(before, tol) === complexUnstableCount(after, tol)) return false;
   const flips = Math.sign(hopfTest(before)) !== Math.sign(hopfTest(after));
-  return flips || crossingFrequency(before, after, tol) !== null;
+  return flips || crossingMatch(before, after, tol) !== null;
 }

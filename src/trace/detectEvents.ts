@@ -10,14 +10,14 @@
  *                 zero, as at a start on a fold, counts once);
  *   Hopf          the bialternate-product sign change together with a change in the number of
  *                 unstable complex eigenvalues (hopfBetween, src/detect/hopfTest.ts: a neutral
- *                 saddle flips the sign only), located on the real part of the pair that
- *                 crosses (crossingFrequency, then pairRealPart.ts).
+ *                 saddle flips the sign only), located on the real part of the eigenvalue that
+ *                 crosses, followed over the bracket (crossingMatch, then pairRealPart.ts).
  */
 import { IMAG_TOL, TRACE } from '../defaults.js';
 import { eigenvalues } from '../linalg/eig.js';
 import type { Eigenvalue, EventType } from '../types.js';
 import type { ExtendedSystem } from './extendedSystem.js';
-import { criticalPair, crossingFrequency, hopfBetween, matchComplex } from '../detect/hopfTest.js';
+import { criticalPair, crossingMatch, hopfBetween, matchComplex } from '../detect/hopfTest.js';
 import { pairRealPart } from './pairRealPart.js';
 import { locateBranchPoint } from './locateBranchPoint.js';
 import { locateOnBranch, type BranchTest, type Located } from './locateOnBranch.js';
@@ -88,6 +88,19 @@ export function detectEvents(
       type: 'fold', between: [i, i + 1], testBefore: a.t[n]!, testAfter: b.t[n]!, located, eigenvalues: eigenvalues(ext.jx, n),
     });
   };
+  /**
+   * Re of the crossing eigenvalue between points a and b, followed from its value ends[0] at a to
+   * ends[1] at b: the eigenvalue nearest the straight path between them, at z's share of the chord.
+   */
+  const followed = (a: RawPoint, b: RawPoint, ends: readonly [Eigenvalue, Eigenvalue]): BranchTest => {
+    const [v, w] = ends;
+    const chord = distance(a.z, b.z);
+    return (z, _t, tangent) => {
+      if (!(tangent.ok || tangent.singular)) return NaN;
+      const share = chord > 0 ? Math.min(1, distance(z, a.z) / chord) : 0;
+      return pairRealPart(eigenvalues(ext.jx, n), { re: v.re + share * (w.re - v.re), im: v.im + share * (w.im - v.im) });
+    };
+  };
   for (let i = 0; i + 1 < points.length; i++) {
     const a = points[i]!;
     const b = points[i + 1]!;
@@ -104,15 +117,12 @@ export function detectEvents(
     }
     const imagTol = IMAG_TOL * (1 + Math.max(size(a.eigenvalues), size(b.eigenvalues)));
     if (hopfBetween(a.eigenvalues, b.eigenvalues, imagTol)) {
-      const omega = crossingFrequency(a.eigenvalues, b.eigenvalues, imagTol)
-        ?? (criticalPair(a.eigenvalues, imagTol) ?? criticalPair(b.eigenvalues, imagTol))?.im;
-      if (omega === undefined) continue;
-      const gA = pairRealPart(a.eigenvalues, omega);
-      const gB = pairRealPart(b.eigenvalues, omega);
+      const ends = crossingMatch(a.eigenvalues, b.eigenvalues, imagTol) ?? onAxis(criticalPair(a.eigenvalues, imagTol) ?? criticalPair(b.eigenvalues, imagTol));
+      if (ends === null) continue;
+      const gA = pairRealPart(a.eigenvalues, ends[0]);
+      const gB = pairRealPart(b.eigenvalues, ends[1]);
       if (!(gA * gB < 0)) continue;
-      const hopf: BranchTest = (_z, _t, tangent) =>
-        tangent.ok || tangent.singular ? pairRealPart(eigenvalues(ext.jx, n), omega) : NaN;
-      record('hopf', i, hopf, gA, gB);
+      record('hopf', i, followed(a, b, ends), gA, gB);
     }
   }
   // A Hopf point exactly on an end of the range (a range chosen to end at it): there the crossing
@@ -123,29 +133,34 @@ export function detectEvents(
     for (const [end, next] of [[0, 1], [points.length - 1, points.length - 2]] as const) {
       const q = points[end]!;
       if (!(opts.bounds?.includes(q.z[n]!) ?? false)) continue;
-      const omega = pairOnAxis(q.eigenvalues, points[next]!.eigenvalues);
-      if (omega === null) continue;
-      const g = pairRealPart(points[next]!.eigenvalues, omega);
-      const hopf: BranchTest = (_z, _t, tangent) =>
-        tangent.ok || tangent.singular ? pairRealPart(eigenvalues(ext.jx, n), omega) : NaN;
-      if (end === 0) record('hopf', 0, hopf, 0, g);
-      else record('hopf', next, hopf, g, 0);
+      const pair = pairOnAxis(q.eigenvalues, points[next]!.eigenvalues);
+      if (pair === null) continue;
+      const [atEnd, beside] = pair;
+      if (end === 0) record('hopf', 0, followed(q, points[next]!, [atEnd, beside]), 0, beside.re);
+      else record('hopf', next, followed(points[next]!, q, [beside, atEnd]), beside.re, 0);
     }
   }
   return { events, failures };
 }
 
 /**
- * The frequency of a complex pair with |Re| within the stability threshold at `at` whose match at
- * `beside` (matchComplex) has |Re| above it (so the pair leaves the axis along the branch), or null.
+ * A complex eigenvalue with |Re| within the stability threshold at `at` and its match at `beside`
+ * (matchComplex) when that has |Re| above it (so the pair leaves the axis along the branch), or null.
  */
-function pairOnAxis(at: readonly Eigenvalue[], beside: readonly Eigenvalue[]): number | null {
+function pairOnAxis(at: readonly Eigenvalue[], beside: readonly Eigenvalue[]): [Eigenvalue, Eigenvalue] | null {
   const scale = Math.max(1, size(at));
   const threshold = TRACE.stabilityTol * scale;
   for (const [v, match] of matchComplex(at, beside, IMAG_TOL * (1 + scale))) {
-    if (Math.abs(v.re) <= threshold && Math.abs(match.re) > TRACE.stabilityTol * Math.max(1, size(beside))) return v.im;
+    if (Math.abs(v.re) <= threshold && Math.abs(match.re) > TRACE.stabilityTol * Math.max(1, size(beside))) return [v, match];
   }
   return null;
+}
+
+/** The point iω on the axis, twice, for the eigenvalue c (iω with ω = Im c); null without one. */
+function onAxis(c: Eigenvalue | null): [Eigenvalue, Eigenvalue] | null {
+  if (c === null) return null;
+  const axis = { re: 0, im: c.im };
+  return [axis, axis];
 }
 
 /**

@@ -115,6 +115,29 @@ ${UNIT_OSCILLATOR}
     expectOneHopfAtZero(s);
   });
 
+  it('follows the crossing eigenvalue over its step when a damped mode lies as near the point iω on the axis', () => {
+    // Analytic: on the origin the eigenvalues are λ ± 1.2i and −0.0005 ± 1.1672038111970313i; only the
+    // first pair crosses (λ = 0, ω = 1.2, supercritical). One step ends at λ = ±0.0328, where both
+    // pairs lie 0.0328 from 1.2i (a case a random property run met, either sweep direction); the
+    // crossing eigenvalue is followed from its value at one end of the step to the other.
+    const s = system(`
+states: { a: 0, b: 0, c: 0, d: 0 }
+parameters: { lam: -1 }
+equations:
+  a: lam*a - 1.2*b - a*(a^2 + b^2)
+  b: 1.2*a + lam*b - b*(a^2 + b^2)
+  c: -0.0005*c - 1.1672038111970313*d
+  d: 1.1672038111970313*c - 0.0005*d
+`);
+    for (const [from, to] of [[-1, 1], [1, -1]] as const) {
+      const trace = traceBranches(s, Float64Array.of(from), traceSettings(0, from, to), [new Float64Array(4)]);
+      expect(trace.events.map((e) => e.type), `${from} → ${to}`).toEqual(['hopf']);
+      expectClose(trace.events[0]!.parameter, 0, { abs: 1e-10 }, 'Hopf at λ = 0 (analytic)');
+      expectClose(trace.events[0]!.frequency!, 1.2, { rel: 1e-8 }, 'ω = 1.2 (analytic)');
+      expect(trace.events[0]!.criticality).toBe('supercritical');
+    }
+  });
+
   it('finds a Hopf point that shares its step with a neutral saddle', () => {
     // Analytic: on the origin the eigenvalues are λ ± i (Hopf at λ = 0, ω = 1, supercritical as above)
     // and the real pair 1, λ − 1.005, whose sum crosses 0 at λ = 0.005 (a neutral saddle, not a Hopf
