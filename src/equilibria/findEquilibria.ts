@@ -12,13 +12,14 @@
  *     step), it is not a duplicate (|a_i − b_i| ≤ duplicateTol·max(|a_i|, |b_i|, σ_i) for every
  *     state i) and it lies in the box widened by boxTolerance of its width on each side. Roots
  *     outside are still deflated, never reported.
- * Typical sizes σ_i (deflation distances and duplicates are measured in them): the largest |x_i|
- * over the guess and the roots found so far, or 1 where all of these are 0. A model whose states
- * are all of size 1e-3 is then searched just as one of size 1 (the box aside).
  *  4. Each kept root is classified from its Jacobian (a non-finite Jacobian drops the root).
+ * Typical sizes σ_i (deflation distances, duplicates and ties are measured in them): the largest
+ * |x_i| over the guess and the roots found so far, or 1 where all of these are 0. A model whose
+ * states are all of size 1e-3 is then searched just as one of size 1 (the box aside).
  * Total Newton iterations are capped by EQUILIBRIA.iterationBudget; the diagnostics say whether
  * the cap was reached. Non-finite values at a start end that start's solve ('non-finite' status).
- * Result order: lexicographic in the states (first state, then second, …; near-equal coordinates tie).
+ * Result order: lexicographic in the states (first state, then second, …; coordinates equal within
+ * duplicateTol·σ_i tie).
  */
 import { EQUILIBRIA, NEWTON } from '../defaults.js';
 import { allFinite } from '../linalg/norm.js';
@@ -93,14 +94,16 @@ function insideBox(x: Float64Array, box: Box): boolean {
   return true;
 }
 
-/** First state, then second, …; coordinates equal within duplicateTol (relative) count as ties. */
-function lexicographic(a: Equilibrium, b: Equilibrium): number {
-  for (let i = 0; i < a.state.length; i++) {
-    const x = a.state[i]!;
-    const y = b.state[i]!;
-    if (Math.abs(x - y) > EQUILIBRIA.duplicateTol * Math.max(1, Math.abs(x), Math.abs(y))) return x - y;
-  }
-  return 0;
+/** First state, then second, …; coordinates equal within duplicateTol·σ_i count as ties. */
+function lexicographic(sizes: Float64Array): (a: Equilibrium, b: Equilibrium) => number {
+  return (a, b) => {
+    for (let i = 0; i < a.state.length; i++) {
+      const x = a.state[i]!;
+      const y = b.state[i]!;
+      if (Math.abs(x - y) > EQUILIBRIA.duplicateTol * Math.max(sizes[i]!, Math.abs(x), Math.abs(y))) return x - y;
+    }
+    return 0;
+  };
 }
 
 /**
@@ -190,6 +193,6 @@ export function findEquilibria(system: System, p: Float64Array, opts: FindEquili
     }
     equilibria.push(classifyEquilibrium(jac.slice(), n, root.state, root.residual, root.iterations));
   }
-  equilibria.sort(lexicographic);
+  equilibria.sort(lexicographic(typicalSizes([guess, ...deflated], n)));
   return { equilibria, diagnostics: d };
 }
