@@ -5,9 +5,10 @@
  *
  * Step control (common practice): halve ds when the corrector fails or the tangent turns by more
  * than maxTurnDegrees (keeps the predictor error, about κ·ds²/2, small against the branch
- * spacing), or when the step hides eigenvalue crossings (hiddenCrossings.ts: two crossings, or a
- * crossing beside a pair turning real, which the test functions cannot tell; halving stops at dsMin); grow it by growFactor after a
- * correction of at most easyIterations Newton steps; clamp to [dsMin, dsMax].
+ * spacing), or when the step hides eigenvalue crossings (hiddenCrossings.ts: two crossings, a
+ * crossing beside a pair turning real, which the test functions cannot tell, or a crossing pair
+ * that cannot be told from another one after the step; halving stops at dsMin); grow it by
+ * growFactor after a correction of at most easyIterations Newton steps; clamp to [dsMin, dsMax].
  *
  * Stops: 'left range' (last point landed exactly on the bound, landOnBound.ts), 'closed loop'
  * (back within 2·ds of the first point, tangent aligned, after having been at least four times

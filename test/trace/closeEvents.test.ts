@@ -138,6 +138,32 @@ equations:
     }
   });
 
+  it('shortens the step where two pairs lie closer together than a step moves them, and follows the right one', () => {
+    // Analytic: on the origin the eigenvalues are (λ − c) ± 1.2i with c = −0.002284733397991219 and
+    // λ ± (1.2 + λ)i: Hopf points at λ = c (ω = 1.2) and λ = 0 (ω = 1.2), both supercritical. Near
+    // λ = c the pairs lie 0.003 apart while a step moves them by 0.005 (a case a random property run
+    // met), so the eigenvalue nearest the crossing one before the step is the other pair after it.
+    const c = -0.002284733397991219;
+    const s = system(`
+states: { a: 0, b: 0, p: 0, q: 0 }
+parameters: { lam: -1 }
+equations:
+  a: (lam - (${c}))*a - 1.2*b - a*(a^2 + b^2)
+  b: 1.2*a + (lam - (${c}))*b - b*(a^2 + b^2)
+  p: lam*p - (1.2 + lam)*q - p*(p^2 + q^2)
+  q: (1.2 + lam)*p + lam*q - q*(p^2 + q^2)
+`);
+    const trace = traceBranches(s, Float64Array.of(-1), traceSettings(0, -1, 1), [new Float64Array(4)]);
+    const events = [...trace.events].sort((x, y) => x.parameter - y.parameter);
+    expect(events.map((e) => e.type)).toEqual(['hopf', 'hopf']);
+    expectClose(events[0]!.parameter, c, { abs: 1e-12 }, 'Hopf at λ = c (analytic)');
+    expectClose(events[1]!.parameter, 0, { abs: 1e-12 }, 'Hopf at λ = 0 (analytic)');
+    for (const e of events) {
+      expectClose(e.frequency!, 1.2, { rel: 1e-9 }, 'ω = 1.2 (analytic)');
+      expect(e.criticality).toBe('supercritical');
+    }
+  });
+
   it('finds a Hopf point that shares its step with a neutral saddle', () => {
     // Analytic: on the origin the eigenvalues are λ ± i (Hopf at λ = 0, ω = 1, supercritical as above)
     // and the real pair 1, λ − 1.005, whose sum crosses 0 at λ = 0.005 (a neutral saddle, not a Hopf
