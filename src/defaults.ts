@@ -60,6 +60,9 @@ export const TRACE = {
   /** In the scaled arclength, a state's typical size counts for at least this fraction of |to − from|
    *  (and at most all of it): src/trace/stateWeights.ts. */
   smallestStateShare: 0.1,
+  /** A turn larger than maxTurnDegrees over a step of at most this fraction of |to − from| is taken
+   *  as a corner of the model when [f_x f_λ] jumps there (src/trace/corner.ts). */
+  cornerStep: 1e-6,
   /** Offset of a switched branch's first point from the branch point, as a fraction of ds. */
   switchOffset: 0.3,
   /** Eigenvalues with real part below this (relative to max(1, |largest eigenvalue|)) count as stable. */

@@ -200,7 +200,7 @@ export interface TracePoint {
 }
 
 export const STOP_REASONS = [
-  'left range', 'closed loop', 'point budget', 'step too small', 'non-finite', 'interrupted',
+  'left range', 'closed loop', 'point budget', 'corner', 'step too small', 'non-finite', 'interrupted',
 ] as const;
 export type StopReason = (typeof STOP_REASONS)[number];
 

@@ -9,6 +9,8 @@ export function stopWords(reason: StopReason): string {
       return 'it closed on itself (a loop)';
     case 'point budget':
       return 'it used up its point budget';
+    case 'corner':
+      return 'it reached a corner of the model (an abs, min or max switches) that it cannot turn';
     case 'step too small':
       return 'the step length fell below its smallest allowed value';
     case 'non-finite':

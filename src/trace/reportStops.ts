@@ -12,6 +12,8 @@ export const STOP_WHY: Record<StopReason, string> = {
   'closed loop': 'it closed into a loop',
   'point budget': 'the point budget per branch is used up; raise it to follow the branch further, or give the ' +
     'states start values of their typical size in the model (steps are measured against them)',
+  corner: 'it reached a corner of the model (an abs, min or max switches there) that it cannot turn; a steady ' +
+    'state may end there, so look at the branches on either side of it',
   'step too small': 'the step length fell below its smallest value (the corrector kept failing; one cause is a state ' +
     'that grows far beyond its start values, which give its typical size: give it a start value of that size)',
   'non-finite': 'the model gave a value that is not finite',

@@ -10,7 +10,7 @@ import { walkBranch, type WalkContext } from './walkBranch.js';
 
 /** Which stop to report for a branch walked both ways: the less ordinary one. */
 export const STOP_RANK: Record<StopReason, number> = {
-  'left range': 0, 'closed loop': 1, 'point budget': 2, 'step too small': 3, 'non-finite': 4, interrupted: 5,
+  'left range': 0, 'closed loop': 1, 'point budget': 2, corner: 3, 'step too small': 4, 'non-finite': 5, interrupted: 6,
 };
 
 export interface WalkedBranch {

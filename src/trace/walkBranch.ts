@@ -10,15 +10,20 @@
  * that cannot be told from another one after the step; halving stops at dsMin); grow it by
  * growFactor after a correction of at most easyIterations Newton steps; clamp to [dsMin, dsMax].
  *
+ * Corners: a turn larger than maxTurnDegrees is accepted over a step of at most TRACE.cornerStep of
+ * the range when [f_x f_λ] jumps across it (an abs, min or max switching, corner.ts); where no step
+ * can turn (the branch bends back), the walk stops with 'corner' instead of 'step too small'.
+ *
  * Stops: 'left range' (last point landed exactly on the bound, landOnBound.ts), 'closed loop'
  * (back within 2·ds of the first point, tangent aligned, after having been at least four times
  * as far; the first point is appended again to close the curve), 'point budget',
- * 'step too small', 'non-finite', 'interrupted'.
+ * 'corner', 'step too small', 'non-finite', 'interrupted'.
  */
 import { TRACE } from '../defaults.js';
 import { message } from '../errors.js';
 import type { StopReason, TraceSettings } from '../types.js';
 import { correctPoint } from './correctPoint.js';
+import { cornerScratch, cornerStep, jacobianJumps } from './corner.js';
 import type { ExtendedSystem } from './extendedSystem.js';
 import { hiddenCrossings } from './hiddenCrossings.js';
 import { landOnBound } from './landOnBound.js';
@@ -58,6 +63,14 @@ export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): W
   let ds = settings.ds;
   let farthest = 0;
   let sawNonFinite = false;
+  const cornerLength = cornerStep(Math.abs(settings.to - settings.from));
+  const scratch = cornerScratch(ext);
+  const probe = new Float64Array(m);
+  /** Why steps of every length failed at `q`: a corner just ahead, or not. */
+  const stuckAt = (q: RawPoint): StopReason => {
+    for (let j = 0; j < m; j++) probe[j] = q.z[j]! + cornerLength * q.t[j]!;
+    return jacobianJumps(ext, q.z, probe, scratch) ? 'corner' : 'step too small';
+  };
   for (;;) {
     if (points.length >= budget) return { points, stopped: 'point budget' };
     if (ctx.tick(points.length, cur.z[n]!)) return { points, stopped: 'interrupted' };
@@ -66,10 +79,12 @@ export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): W
       absTol: settings.absTol, maxIter: settings.maxIter, maxDistance: ds, lengthScale: Math.abs(settings.to - settings.from),
     }, work);
     const tangent = c.status === 'converged' ? tangentAt(ext, z, cur.t, tNew, work) : undefined;
-    if (tangent === undefined || !tangent.ok || dot(cur.t, tNew) < minTurnCos) {
+    const turned = tangent !== undefined && tangent.ok && dot(cur.t, tNew) < minTurnCos;
+    const corner = turned && ds <= cornerLength && jacobianJumps(ext, cur.z, z, scratch);
+    if (!corner && (tangent === undefined || !tangent.ok || turned)) {
       sawNonFinite ||= c.status === 'non-finite';
       ds *= TRACE.shrinkFactor;
-      if (ds < settings.dsMin) return { points, stopped: sawNonFinite ? 'non-finite' : 'step too small' };
+      if (ds < settings.dsMin) return { points, stopped: sawNonFinite ? 'non-finite' : stuckAt(cur) };
       continue;
     }
     sawNonFinite = false;
@@ -80,7 +95,8 @@ export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): W
       if (cur.z[n] !== bound) landPoint(ctx, cur, z, bound, points);
       return { points, stopped: 'left range' };
     }
-    const point = rawPoint(ext, z, tNew, tangent, { residual: c.residual, iterations: c.iterations, step, s: cur.s + step });
+    const point = rawPoint(ext, z, tNew, tangent!, { residual: c.residual, iterations: c.iterations, step, s: cur.s + step });
+    if (corner) point.corner = true;
     const hidden = hiddenCrossings(cur.eigenvalues, point.eigenvalues);
     if (hidden !== null) {
       if (ds * TRACE.shrinkFactor >= settings.dsMin) {

@@ -250,6 +250,44 @@ describe('traceBranches switching at a pitchfork', () => {
   });
 });
 
+describe('traceBranches at corners of the model (abs, min, max)', () => {
+  it('follows a branch through a saturation corner without stopping', () => {
+    // Analytic: x' = −x + min(2λ, 1), y' = x − y: equilibria x = y = min(2λ, 1), one branch with a
+    // corner at λ = 1/2 where the saturation is reached; stable everywhere (eigenvalues −1, −1).
+    const model = textSystem('states: { x: 0, y: 0 }\nparameters: { lam: 0 }\nequations:\n  x: -x + min(2*lam, 1)\n  y: x - y');
+    const trace = traceBranches(model, Float64Array.of(-1), traceSettings(0, -1, 2), [Float64Array.of(-2, -2)]);
+    expect(trace.warnings).toEqual([]);
+    expect(trace.events).toEqual([]);
+    expect(trace.branches).toHaveLength(1);
+    const points = trace.branches[0]!.points;
+    expect(trace.branches[0]!.stopped).toBe('left range');
+    expect([points[0]!.parameter, points[points.length - 1]!.parameter]).toEqual([-1, 2]);
+    for (const q of points) {
+      const x = Math.min(2 * q.parameter, 1);
+      expect(Math.abs(q.state[0]! - x)).toBeLessThan(1e-9);
+      expect(Math.abs(q.state[1]! - x)).toBeLessThan(1e-9);
+      expect(q.stable).toBe(true);
+    }
+  });
+
+  it('stops at a corner where the branch turns back, says so, and still finds the smooth fold', () => {
+    // Analytic: x' = λ − |x| − x³ has equilibria λ = |x| + x³. For x > 0 the branch rises; for x < 0,
+    // λ = −x + x³ has a smooth fold at x = −1/√3, λ = 2/(3√3), and meets the other half at the corner
+    // (0, 0), where the branch turns back: no step can follow it there.
+    const model = textSystem('states: { x: 1 }\nparameters: { lam: 1 }\nequations:\n  x: lam - abs(x) - x^3');
+    const trace = traceBranches(model, Float64Array.of(-1), traceSettings(0, -1, 2), [Float64Array.of(-1.2), { state: Float64Array.of(1), parameter: 2 }]);
+    expect(trace.events.map((e) => e.type)).toEqual(['fold']);
+    expectClose(trace.events[0]!.parameter, 2 / (3 * Math.sqrt(3)), { abs: 1e-10 }, 'fold at λ = 2/(3√3) (analytic)');
+    expect(trace.branches.map((b) => b.stopped)).toEqual(['corner', 'corner']);
+    for (const b of trace.branches) {
+      const end = b.points.find((q) => Math.abs(q.parameter) < 1e-6);
+      expect(end, 'each half reaches the corner at λ = 0').toBeDefined();
+    }
+    expect(trace.warnings).toHaveLength(2);
+    for (const w of trace.warnings) expect(w).toContain(STOP_WHY.corner);
+  });
+});
+
 describe('traceBranches at the edge of the model\'s domain', () => {
   it('stops with "non-finite" where the branch runs into x < 0 of x\' = √x − λ, and warns', () => {
     // Analytic: equilibria x = λ² for λ ≥ 0 only; at (0, 0) the branch reaches the edge of the
