@@ -243,6 +243,8 @@ export interface SpecialPoint {
   period?: number;
   /** Branch points: the ids of the branches started here. */
   newBranches?: number[];
+  /** At a corner of the model (an abs, min or max switches): the eigenvalues jump here; no coefficient. */
+  corner?: boolean;
 }
 
 export interface TraceSettings {
@@ -327,6 +329,8 @@ export interface ReportEvent {
   frequency?: number;
   period?: number;
   newBranches?: number[];
+  /** At a corner of the model (an abs, min or max switches); see eventMeaning. */
+  corner?: boolean;
 }
 
 export interface MarginSide {

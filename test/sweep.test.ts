@@ -5,6 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { message, NumericalError, UsageError } from '../src/errors.js';
 import { loadModel, readModelFile } from '../src/model/loadModel.js';
+import { cornerMeaning } from '../src/report/eventWords.js';
 import { sweep } from '../src/sweep.js';
 import { bisect } from './trace/bisect.js';
 
@@ -104,6 +105,17 @@ describe('sweep()', () => {
       expect(Math.abs(q.state[0]! - 16e6 * (l * (1 - l)) ** 2)).toBeLessThan(1e-9 * 1e6);
     }
     expect(Math.max(...points.map((q) => q.state[0]!))).toBeGreaterThan(0.99e6); // through the top
+  });
+
+  it('says in the report that a special point sits at a corner of the model and that no normal form applies', () => {
+    // Analytic (test/trace/behaviour.test.ts): the stable focus turns into an unstable one at the corner
+    // x = y = 1, λ = 1.1 of x' = −x + 1.5·max(x − 1, 0) + y, y' = λ − x − 0.1y.
+    const model = loadModel('states: { x: 0, y: 0 }\nparameters: { lam: 0.5 }\nequations:\n  x: -x + 1.5*max(x - 1, 0) + y\n  y: lam - x - 0.1*y', 'corner.yaml');
+    const { report } = sweep(model, { vary: 'lam', from: 0, to: 2 });
+    expect(report.events).toHaveLength(1);
+    expect(report.events[0]).toMatchObject({ type: 'hopf', corner: true, meaning: cornerMeaning('hopf') });
+    expect(report.events[0]!.lyapunov).toBeUndefined();
+    expect(report.margin?.above?.parameter).toBeCloseTo(1.1, 9); // the margin counts it
   });
 
   it('gives every point and special point its own diagnostics: residual, iterations, step, test-function values', () => {

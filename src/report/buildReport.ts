@@ -2,7 +2,7 @@ import type {
   Branch, Eigenvalue, ModelInfo, Report, ReportBranch, ReportEvent, SpecialPoint, Trace, TracePoint,
 } from '../types.js';
 import { CAUTION } from './caution.js';
-import { eventMeaning } from './eventWords.js';
+import { cornerMeaning, eventMeaning } from './eventWords.js';
 import { computeMargin } from './margin.js';
 import { stabilityIntervals } from './stabilityIntervals.js';
 
@@ -91,11 +91,12 @@ function reportEvent(e: SpecialPoint, names: readonly string[], nearStable: bool
     state: stateRecord(e.state, names),
     branch: e.branch,
     eigenvalues: e.eigenvalues.map((v: Eigenvalue) => ({ re: v.re, im: v.im })),
-    meaning: eventMeaning(e.type, e.criticality, nearStable),
+    meaning: e.corner === true ? cornerMeaning(e.type) : eventMeaning(e.type, e.criticality, nearStable),
     residual: e.residual,
     iterations: e.iterations,
     test: { quantity: TEST_QUANTITY[e.type], before: e.testBefore, after: e.testAfter },
   };
+  if (e.corner === true) out.corner = true;
   if (e.foldCoefficient !== undefined) out.foldCoefficient = e.foldCoefficient;
   if (e.lyapunov !== undefined) out.lyapunov = e.lyapunov;
   if (e.criticality !== undefined) out.criticality = e.criticality;

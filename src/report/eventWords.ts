@@ -53,4 +53,17 @@ export function eventMeaning(type: EventType, criticality?: Criticality, touches
   }
 }
 
+/** What a special point at a corner of the model (an abs, min or max switching) means: the eigenvalues jump there. */
+export function cornerMeaning(type: EventType): string {
+  const where = 'at a corner of the model (an abs, min or max switches), with no normal form';
+  switch (type) {
+    case 'fold':
+      return `the branch turns back ${where}: the steady state disappears; expect a jump`;
+    case 'hopf':
+      return `a pair of eigenvalues jumps across the imaginary axis ${where}: oscillations may start, gently or abruptly`;
+    default:
+      return `an eigenvalue jumps across zero ${where}: the steady state changes stability here`;
+  }
+}
+
 export type EventLabel = (typeof EVENT_LABELS)[number];

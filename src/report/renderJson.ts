@@ -16,7 +16,7 @@ const KEY_ORDER = [
   'unstableCount', 'settings', 'parameterIndex', 'ds', 'dsMin', 'dsMax', 'maxPoints', 'absTol', 'maxIter',
   'maxBranches', 'stopped', 'origin', 'points', 'maxRealPart', 'stability', 'branches', 'events', 'eigenvalues', 're',
   'im', 'meaning', 'residual', 'iterations', 'step', 'test', 'quantity', 'before', 'after', 'foldCoefficient', 'lyapunov', 'criticality', 'frequency', 'period',
-  'newBranches', 'margin', 'operatingStable', 'operatingUnstableCount', 'below', 'above', 'distance', 'relative', 'nearestRelative', 'status', 'warnMargin',
+  'newBranches', 'corner', 'margin', 'operatingStable', 'operatingUnstableCount', 'below', 'above', 'distance', 'relative', 'nearestRelative', 'status', 'warnMargin',
   'failMargin', 'warnings', 'interrupted', 'caution',
 ];
 const RANK = new Map(KEY_ORDER.map((k, i) => [k, i]));

@@ -34,6 +34,18 @@ export function cornerScratch(ext: ExtendedSystem): CornerScratch {
 }
 
 /**
+ * Whether a special point at z (located on a branch with tangent t) sits on a switch of the model:
+ * [f_x f_λ] jumps across it within a corner step. There the eigenvalues jump rather than pass
+ * through the axis, and no normal form applies. Leaves ext.jx at the far probe.
+ */
+export function atCorner(ext: ExtendedSystem, z: Float64Array, t: Float64Array, range: number, s: CornerScratch): boolean {
+  const h = cornerStep(range);
+  const before = Float64Array.from(z, (v, j) => v - h * t[j]!);
+  const after = Float64Array.from(z, (v, j) => v + h * t[j]!);
+  return jacobianJumps(ext, before, after, s);
+}
+
+/**
  * Whether a switch of the model lies between the scaled points p and q (see the file comment).
  * Leaves ext.jx holding f_x at q. False when a Jacobian is not finite.
  */

@@ -22,8 +22,6 @@ export interface RawPoint {
   step: number;
   /** Scaled arclength along the walk. */
   s: number;
-  /** A corner of the model (an abs, min or max switching) lies between the previous point and this one. */
-  corner?: boolean;
 }
 
 /**

@@ -16,6 +16,7 @@ import { TRACE } from '../defaults.js';
 import { message } from '../errors.js';
 import { normInf } from '../linalg/norm.js';
 import type { Branch, SpecialPoint, System, Trace, TraceHooks, TraceSettings } from '../types.js';
+import { atCorner, cornerScratch } from './corner.js';
 import { correctStart } from './correctStart.js';
 import { describeEvent } from './describeEvent.js';
 import { detectEvents } from './detectEvents.js';
@@ -56,6 +57,7 @@ export function traceBranches(
   const startStates = jobs.map((j) => (j.kind === 'start' ? j.x : typical));
   const ext = makeExtendedSystem(system, p, k, stateWeights([...startStates, typical], system.n, from, to));
   const work = makeWorkspace(ext.m);
+  const scratch = cornerScratch(ext);
   const warnings: string[] = [];
   const branches: Branch[] = [];
   const traced: RawPoint[][] = [];
@@ -143,8 +145,11 @@ export function traceBranches(
     for (const found of events) {
       const z = found.located.z;
       if (alreadyFound(pending, found.type, z, TRACE.samePoint * Math.max(range, normInf(z)))) continue;
-      const what = describeEvent(ext, work, found, walked.points[found.between[0]]!.t);
+      // On a switch of the model the eigenvalues jump: no normal form, no second branch to switch to.
+      const corner = atCorner(ext, z, walked.points[found.between[0]]!.t, range, scratch);
+      const what = corner ? { type: found.type } : describeEvent(ext, work, found, walked.points[found.between[0]]!.t);
       const event = pendingEvent(ext, id, walked.points, found, what);
+      if (corner) event.point.corner = true;
       pending.push(event);
       if (what.direction !== undefined) queue.push({ kind: 'switch', event, z: z.slice(), d: what.direction });
       else if (found.type === 'branch-point') {

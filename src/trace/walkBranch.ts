@@ -96,7 +96,6 @@ export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): W
       return { points, stopped: 'left range' };
     }
     const point = rawPoint(ext, z, tNew, tangent!, { residual: c.residual, iterations: c.iterations, step, s: cur.s + step });
-    if (corner) point.corner = true;
     const hidden = hiddenCrossings(cur.eigenvalues, point.eigenvalues);
     if (hidden !== null) {
       if (ds * TRACE.shrinkFactor >= settings.dsMin) {

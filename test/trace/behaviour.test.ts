@@ -270,6 +270,24 @@ describe('traceBranches at corners of the model (abs, min, max)', () => {
     }
   });
 
+  it('reports a loss of stability at a corner as a special point at the corner, without a normal form', () => {
+    // Analytic: x' = −x + 1.5·max(x − 1, 0) + y, y' = λ − x − 0.1y. Equilibria y = x − 1.5·max(x − 1, 0),
+    // λ = x + 0.1y: λ = 1.1x below x = 1, λ = 0.95x + 0.15 above, so one rising branch with a corner
+    // at x = y = 1, λ = 1.1. The Jacobian jumps there from [[−1, 1], [−1, −0.1]] (trace −1.1, det 1.1:
+    // stable focus) to [[0.5, 1], [−1, −0.1]] (trace 0.4, det 0.95: unstable focus): the pair jumps
+    // across the imaginary axis.
+    const model = textSystem('states: { x: 0, y: 0 }\nparameters: { lam: 0 }\nequations:\n  x: -x + 1.5*max(x - 1, 0) + y\n  y: lam - x - 0.1*y');
+    const trace = traceBranches(model, Float64Array.of(0), traceSettings(0, 0, 2), [Float64Array.of(0, 0)]);
+    expect(trace.warnings).toEqual([]);
+    expect(trace.branches).toHaveLength(1);
+    expect(trace.events.map((e) => [e.type, e.corner])).toEqual([['hopf', true]]);
+    const e = trace.events[0]!;
+    expectClose(e.parameter, 1.1, { abs: 1e-9 }, 'corner at λ = 1.1 (analytic)');
+    expect(e.lyapunov).toBeUndefined();
+    expect(e.criticality).toBeUndefined();
+    for (const q of trace.branches[0]!.points) if (Math.abs(q.parameter - 1.1) > 1e-6) expect(q.stable).toBe(q.parameter < 1.1);
+  });
+
   it('stops at a corner where the branch turns back, says so, and still finds the smooth fold', () => {
     // Analytic: x' = λ − |x| − x³ has equilibria λ = |x| + x³. For x > 0 the branch rises; for x < 0,
     // λ = −x + x³ has a smooth fold at x = −1/√3, λ = 2/(3√3), and meets the other half at the corner
