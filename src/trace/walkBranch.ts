@@ -63,7 +63,8 @@ export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): W
   let ds = settings.ds;
   let farthest = 0;
   let sawNonFinite = false;
-  const cornerLength = cornerStep(Math.abs(settings.to - settings.from));
+  const range = Math.abs(settings.to - settings.from);
+  const cornerLength = cornerStep(range);
   const scratch = cornerScratch(ext);
   const probe = new Float64Array(m);
   /** Why steps of every length failed at `q`: a corner just ahead, or not. */
@@ -76,12 +77,12 @@ export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): W
     if (ctx.tick(points.length, cur.z[n]!)) return { points, stopped: 'interrupted' };
     for (let j = 0; j < m; j++) z[j] = cur.z[j]! + ds * cur.t[j]!;
     const c = correctPoint(ext, z, zHat, cur.t, {
-      absTol: settings.absTol, maxIter: settings.maxIter, maxDistance: ds, lengthScale: Math.abs(settings.to - settings.from),
+      absTol: settings.absTol, maxIter: settings.maxIter, maxDistance: ds, lengthScale: range,
     }, work);
     const tangent = c.status === 'converged' ? tangentAt(ext, z, cur.t, tNew, work) : undefined;
-    const turned = tangent !== undefined && tangent.ok && dot(cur.t, tNew) < minTurnCos;
-    const corner = turned && ds <= cornerLength && jacobianJumps(ext, cur.z, z, scratch);
-    if (!corner && (tangent === undefined || !tangent.ok || turned)) {
+    const found = tangent !== undefined && tangent.ok;
+    const turned = found && dot(cur.t, tNew) < minTurnCos;
+    if (!found || (turned && !(ds <= cornerLength && jacobianJumps(ext, cur.z, z, scratch)))) {
       sawNonFinite ||= c.status === 'non-finite';
       ds *= TRACE.shrinkFactor;
       if (ds < settings.dsMin) return { points, stopped: sawNonFinite ? 'non-finite' : stuckAt(cur) };
@@ -95,7 +96,7 @@ export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): W
       if (cur.z[n] !== bound) landPoint(ctx, cur, z, bound, points);
       return { points, stopped: 'left range' };
     }
-    const point = rawPoint(ext, z, tNew, tangent!, { residual: c.residual, iterations: c.iterations, step, s: cur.s + step });
+    const point = rawPoint(ext, z, tNew, tangent, { residual: c.residual, iterations: c.iterations, step, s: cur.s + step });
     const hidden = hiddenCrossings(cur.eigenvalues, point.eigenvalues);
     if (hidden !== null) {
       if (ds * TRACE.shrinkFactor >= settings.dsMin) {
