@@ -17,11 +17,14 @@ import { IMAG_TOL, TRACE } from '../defaults.js';
 import { eigenvalues } from '../linalg/eig.js';
 import type { Eigenvalue, EventType } from '../types.js';
 import type { ExtendedSystem } from './extendedSystem.js';
-import { criticalPair, crossingMatch, hopfBetween, matchComplex } from '../detect/hopfTest.js';
+import { criticalPair, crossingMatch, hopfBetween, hopfTest, matchComplex } from '../detect/hopfTest.js';
+import { normInf } from '../linalg/norm.js';
 import { pairRealPart } from './pairRealPart.js';
 import { locateBranchPoint } from './locateBranchPoint.js';
 import { locateOnBranch, type BranchTest, type Located } from './locateOnBranch.js';
 import type { RawPoint } from './rawPoint.js';
+import { tangentAt } from './tangentAt.js';
+import { nearSegment } from './workspace.js';
 import type { Workspace } from './workspace.js';
 import { distance } from '../linalg/vector.js';
 
@@ -101,9 +104,44 @@ export function detectEvents(
       return pairRealPart(eigenvalues(ext.jx, n), { re: v.re + share * (w.re - v.re), im: v.im + share * (w.im - v.im) });
     };
   };
+  /**
+   * A bracket across a corner where the branch turned back (corner.ts: pastCorner): the test
+   * functions jump there rather than pass through zero, so nothing is located; the corner itself is
+   * the special point: a fold where t_λ changes sign, a Hopf point where a pair jumps across the
+   * imaginary axis.
+   */
+  const atTurnedCorner = (i: number, c: Float64Array): void => {
+    const a = points[i]!;
+    const b = points[i + 1]!;
+    const imagTol = IMAG_TOL * (1 + Math.max(size(a.eigenvalues), size(b.eigenvalues)));
+    const types: FoundEvent['type'][] = [];
+    if (a.t[n]! * b.t[n]! < 0) types.push('fold');
+    if (hopfBetween(a.eigenvalues, b.eigenvalues, imagTol)) types.push('hopf');
+    for (const type of types) {
+      if (opts.skip?.(type, a, b) === true) continue;
+      const t = new Float64Array(ext.m);
+      const tangent = tangentAt(ext, c, a.t, t, work);
+      const f = new Float64Array(n);
+      if (!tangent.ok || !ext.residual(c, f)) {
+        failures.push({ type, between: [i, i + 1], status: 'corner' });
+        continue;
+      }
+      const located: Located = {
+        status: 'converged', z: c.slice(), t, tangent, residual: normInf(f), s: distance(c, a.z), iterations: 0, g: 0,
+      };
+      const pair = crossingMatch(a.eigenvalues, b.eigenvalues, imagTol);
+      const test = type === 'fold' ? [a.t[n]!, b.t[n]!] : pair !== null ? [pair[0].re, pair[1].re] : [hopfTest(a.eigenvalues), hopfTest(b.eigenvalues)];
+      events.push({ type, between: [i, i + 1], testBefore: test[0]!, testAfter: test[1]!, located, eigenvalues: eigenvalues(ext.jx, n) });
+    }
+  };
   for (let i = 0; i + 1 < points.length; i++) {
     const a = points[i]!;
     const b = points[i + 1]!;
+    const corner = [a.corner, b.corner].find((c) => c !== undefined && nearSegment(c, a.z, b.z));
+    if (corner !== undefined) {
+      atTurnedCorner(i, corner);
+      continue;
+    }
     if (a.detSign * b.detSign < 0) {
       const ref = Math.max(a.detLog, b.detLog);
       const bp: BranchTest = (_z, _t, tangent) =>

@@ -22,6 +22,11 @@ export interface RawPoint {
   step: number;
   /** Scaled arclength along the walk. */
   s: number;
+  /**
+   * A corner of the model where the branch turns back (corner.ts: pastCorner), between this point and
+   * the one it was reached from; kept through reversals, so detectEvents looks on either side.
+   */
+  corner?: Float64Array;
 }
 
 /**

@@ -12,7 +12,8 @@
  *
  * Corners: a turn larger than maxTurnDegrees is accepted over a step of at most TRACE.cornerStep of
  * the range when [f_x f_λ] jumps across it (an abs, min or max switching, corner.ts); where no step
- * can turn (the branch bends back), the walk stops with 'corner' instead of 'step too small'.
+ * can turn (the branch bends back), the walk restarts on the piece beyond the switch (pastCorner,
+ * the corner kept on that point for detectEvents), or stops with 'corner' when that fails.
  *
  * Stops: 'left range' (last point landed exactly on the bound, landOnBound.ts), 'closed loop'
  * (back within 2·ds of the first point, tangent aligned, after having been at least four times
@@ -23,7 +24,7 @@ import { TRACE } from '../defaults.js';
 import { message } from '../errors.js';
 import type { StopReason, TraceSettings } from '../types.js';
 import { correctPoint } from './correctPoint.js';
-import { cornerScratch, cornerStep, jacobianJumps } from './corner.js';
+import { cornerScratch, cornerStep, jacobianJumps, pastCorner } from './corner.js';
 import type { ExtendedSystem } from './extendedSystem.js';
 import { hiddenCrossings } from './hiddenCrossings.js';
 import { landOnBound } from './landOnBound.js';
@@ -67,6 +68,7 @@ export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): W
   const cornerLength = cornerStep(range);
   const scratch = cornerScratch(ext);
   const probe = new Float64Array(m);
+  const turnOpts = { absTol: settings.absTol, maxIter: settings.maxIter, lengthScale: range };
   /** Why steps of every length failed at `q`: a corner just ahead, or not. */
   const stuckAt = (q: RawPoint): StopReason => {
     for (let j = 0; j < m; j++) probe[j] = q.z[j]! + cornerLength * q.t[j]!;
@@ -85,7 +87,14 @@ export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): W
     if (!found || (turned && !(ds <= cornerLength && jacobianJumps(ext, cur.z, z, scratch)))) {
       sawNonFinite ||= c.status === 'non-finite';
       ds *= TRACE.shrinkFactor;
-      if (ds < settings.dsMin) return { points, stopped: sawNonFinite ? 'non-finite' : stuckAt(cur) };
+      if (ds >= settings.dsMin) continue;
+      const stop = sawNonFinite ? 'non-finite' : stuckAt(cur);
+      const past = stop === 'corner' ? pastCorner(ext, work, cur, cornerLength, scratch, turnOpts) : null;
+      if (past === null || past.point.z[n]! < lo || past.point.z[n]! > hi) return { points, stopped: stop };
+      past.point.corner = past.corner;
+      points.push(past.point);
+      cur = past.point;
+      ds = settings.ds;
       continue;
     }
     sawNonFinite = false;

@@ -288,23 +288,26 @@ describe('traceBranches at corners of the model (abs, min, max)', () => {
     for (const q of trace.branches[0]!.points) if (Math.abs(q.parameter - 1.1) > 1e-6) expect(q.stable).toBe(q.parameter < 1.1);
   });
 
-  it('stops at a corner where the branch turns back, says so, and still finds the smooth fold', () => {
-    // Analytic: x' = λ − |x| − x³ has equilibria λ = |x| + x³. For x > 0 the branch rises; for x < 0,
-    // λ = −x + x³ has a smooth fold at x = −1/√3, λ = 2/(3√3), and meets the other half at the corner
-    // (0, 0), where the branch turns back: no step can follow it there.
+  it('follows a branch that turns back at a corner, and reports the corner as a fold there, without a coefficient', () => {
+    // Analytic: x' = λ − |x| − x³ has equilibria λ = |x| + x³. For x < 0, λ = −x + x³ has a smooth fold
+    // at x = −1/√3, λ = 2/(3√3) (f_x = 1 − 3x²: unstable between it and 0); at the corner (0, 0) the
+    // branch turns back and rises for x > 0 (f_x = −1 − 3x²: stable). One branch, two folds: the
+    // stable state for x > 0 meets the unstable one at λ = 0 and both vanish below it.
     const model = textSystem('states: { x: 1 }\nparameters: { lam: 1 }\nequations:\n  x: lam - abs(x) - x^3');
     const trace = traceBranches(model, Float64Array.of(-1), traceSettings(0, -1, 2), [Float64Array.of(-1.2), { state: Float64Array.of(1), parameter: 2 }]);
-    expect(trace.events.map((e) => e.type)).toEqual(['fold']);
-    expectClose(trace.events[0]!.parameter, 2 / (3 * Math.sqrt(3)), { abs: 1e-10 }, 'fold at λ = 2/(3√3) (analytic)');
-    expect(trace.branches.map((b) => b.stopped)).toEqual(['corner', 'corner']);
-    for (const b of trace.branches) {
-      // Each half ends at the corner (0, 0) (analytic), to within the corner step.
-      const end = b.points.reduce((best, q) => (Math.abs(q.parameter) < Math.abs(best.parameter) ? q : best));
-      expect(Math.abs(end.parameter)).toBeLessThan(1e-6);
-      expect(Math.abs(end.state[0]!)).toBeLessThan(1e-6);
+    expect(trace.warnings).toEqual([]);
+    expect(trace.branches.map((b) => b.stopped)).toEqual(['left range']);
+    const events = [...trace.events].sort((p, q) => p.parameter - q.parameter);
+    expect(events.map((e) => [e.type, e.corner ?? false])).toEqual([['fold', true], ['fold', false]]);
+    expectClose(events[0]!.parameter, 0, { abs: 1e-12 }, 'corner fold at λ = 0 (analytic)');
+    expectClose(events[0]!.state[0]!, 0, { abs: 1e-12 }, 'at x = 0 (analytic)');
+    expect(events[0]!.foldCoefficient).toBeUndefined();
+    expectClose(events[1]!.parameter, 2 / (3 * Math.sqrt(3)), { abs: 1e-10 }, 'fold at λ = 2/(3√3) (analytic)');
+    for (const q of trace.branches[0]!.points) {
+      const x = q.state[0]!;
+      expectClose(q.parameter, Math.abs(x) + x ** 3, { abs: 1e-9 }, 'λ = |x| + x³ (analytic)');
+      if (Math.abs(x) > 1e-6 && Math.abs(x + 1 / Math.sqrt(3)) > 1e-6) expect(q.stable).toBe(x > 0 || x < -1 / Math.sqrt(3));
     }
-    expect(trace.warnings).toHaveLength(2);
-    for (const w of trace.warnings) expect(w).toContain(STOP_WHY.corner);
   });
 });
 
