@@ -12,6 +12,8 @@
  *                 unstable complex eigenvalues (hopfBetween, src/detect/hopfTest.ts: a neutral
  *                 saddle flips the sign only), located on the real part of the eigenvalue that
  *                 crosses, followed over the bracket (crossingMatch, then pairRealPart.ts).
+ * A bracket across a corner where the branch turned back (corner.ts) is not searched: its fold or
+ * Hopf point is the corner itself (atTurnedCorner).
  */
 import { IMAG_TOL, TRACE } from '../defaults.js';
 import { eigenvalues } from '../linalg/eig.js';
@@ -24,8 +26,7 @@ import { locateBranchPoint } from './locateBranchPoint.js';
 import { locateOnBranch, type BranchTest, type Located } from './locateOnBranch.js';
 import type { RawPoint } from './rawPoint.js';
 import { tangentAt } from './tangentAt.js';
-import { nearSegment } from './workspace.js';
-import type { Workspace } from './workspace.js';
+import { nearSegment, type Workspace } from './workspace.js';
 import { distance } from '../linalg/vector.js';
 
 /** A zero of t_λ this close to a branch point in the same bracket (fraction of the bracket) is that branch point's own turn. Common practice. */
@@ -119,13 +120,15 @@ export function detectEvents(
     if (hopfBetween(a.eigenvalues, b.eigenvalues, imagTol)) types.push('hopf');
     for (const type of types) {
       if (opts.skip?.(type, a, b) === true) continue;
-      const t = new Float64Array(ext.m);
-      const tangent = tangentAt(ext, c, a.t, t, work);
       const f = new Float64Array(n);
-      if (!tangent.ok || !ext.residual(c, f)) {
-        failures.push({ type, between: [i, i + 1], status: 'corner' });
+      const t = new Float64Array(ext.m);
+      // At a right-angled corner the old tangent can be orthogonal to the one-sided one: keep it then.
+      const tangent = ext.residual(c, f) ? tangentAt(ext, c, a.t, t, work) : null;
+      if (tangent === null || (!tangent.ok && !tangent.singular)) {
+        failures.push({ type, between: [i, i + 1], status: 'non-finite' });
         continue;
       }
+      if (!tangent.ok) t.set(a.t);
       const located: Located = {
         status: 'converged', z: c.slice(), t, tangent, residual: normInf(f), s: distance(c, a.z), iterations: 0, g: 0,
       };
