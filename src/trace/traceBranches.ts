@@ -15,11 +15,12 @@
 import { TRACE } from '../defaults.js';
 import { message } from '../errors.js';
 import { normInf } from '../linalg/norm.js';
+import { distance } from '../linalg/vector.js';
 import type { Branch, SpecialPoint, System, Trace, TraceHooks, TraceSettings } from '../types.js';
 import { atCorner, cornerScratch } from './corner.js';
 import { correctStart } from './correctStart.js';
 import { describeEvent } from './describeEvent.js';
-import { detectEvents } from './detectEvents.js';
+import { detectEvents, type FoundEvent } from './detectEvents.js';
 import { makeExtendedSystem } from './extendedSystem.js';
 import { onTracedBranch } from './onTracedBranch.js';
 import { reportStops } from './reportStops.js';
@@ -40,6 +41,9 @@ type Job = { kind: 'start'; x: Float64Array; parameter: number } | { kind: 'swit
  * Same-point tolerance TRACE.samePoint is generous: on a branch that turns at a branch point the
  * state is only found to about the square root of the parameter accuracy.
  */
+
+/** Which kind a corner is reported as when several test functions jump there. */
+const CORNER_RANK: Record<FoundEvent['type'], number> = { fold: 0, hopf: 1, 'branch-point': 2 };
 
 export function traceBranches(
   system: System, params: Float64Array, settings: TraceSettings, starts: readonly StartEquilibrium[], hooks: TraceHooks = {},
@@ -142,17 +146,22 @@ export function traceBranches(
       const [a, b] = f.between.map((i) => walked.points[i]!.z[ext.n]!) as [number, number];
       warnings.push(message.traceLocateFailed(eventWords(f.type), id + 1, name, a, b, f.status));
     }
-    for (const found of events) {
+    const same = (z: Float64Array) => TRACE.samePoint * Math.max(range, normInf(z));
+    const fresh = events.filter((found) => !alreadyFound(pending, found.type, found.located.z, same(found.located.z)));
+    // On a switch of the model the eigenvalues jump: no normal form, no second branch to switch to.
+    // Several test functions jump at one corner; it is reported once: as a fold, else a Hopf point.
+    const onCorner = new Set(fresh.filter((found) => atCorner(ext, found.located.z, walked.points[found.between[0]]!.t, range, scratch)));
+    const cornerFirst = (a: FoundEvent, b: FoundEvent) => CORNER_RANK[a.type] - CORNER_RANK[b.type];
+    for (const found of [...fresh.filter((f) => !onCorner.has(f)), ...fresh.filter((f) => onCorner.has(f)).sort(cornerFirst)]) {
       const z = found.located.z;
-      if (alreadyFound(pending, found.type, z, TRACE.samePoint * Math.max(range, normInf(z)))) continue;
-      // On a switch of the model the eigenvalues jump: no normal form, no second branch to switch to.
-      const corner = atCorner(ext, z, walked.points[found.between[0]]!.t, range, scratch);
+      const corner = onCorner.has(found);
+      if (corner && pending.some((e) => e.point.corner === true && distance(e.z, z) <= same(z))) continue;
       const what = corner ? { type: found.type } : describeEvent(ext, work, found, walked.points[found.between[0]]!.t);
       const event = pendingEvent(ext, id, walked.points, found, what);
       if (corner) event.point.corner = true;
       pending.push(event);
       if (what.direction !== undefined) queue.push({ kind: 'switch', event, z: z.slice(), d: what.direction });
-      else if (found.type === 'branch-point') {
+      else if (found.type === 'branch-point' && !corner) {
         warnings.push(message.traceSwitchFailed(id + 1, name, event.point.parameter, 'the two branch directions could not be computed'));
       }
     }

@@ -12,6 +12,7 @@ import type { System } from '../../src/types.js';
 import { expectClose } from '../helpers/close.js';
 import { textSystem as system } from './modelFile.js';
 import { repeatable } from '../helpers/repeatable.js';
+import { bisect } from './bisect.js';
 
 const num = (x: number): string => x.toPrecision(17);
 
@@ -209,6 +210,39 @@ equations:
         expect(trace.warnings).toEqual([]);
       },
     ), repeatable(11_235, 40));
+  });
+
+  it('turns every V-shaped corner of x\' = λ − a|x| − b·x − c·x³, reports it as a fold there, and finds the smooth fold', () => {
+    // Analytic: equilibria λ = a|x| + b·x + c·x³ (|b| < a): a corner at (0, 0) where the branch turns
+    // back (slopes a + b > 0 and b − a < 0), and for x < 0 a smooth fold at x_f = −√((a − b)/(3c)),
+    // λ_f = (2/3)(a − b)|x_f|. A damped state y' = x − d·y (y = x/d) makes it two-dimensional.
+    fc.assert(fc.property(
+      fc.double({ min: 0.2, max: 5, noNaN: true }), fc.double({ min: -0.95, max: 0.95, noNaN: true }),
+      fc.double({ min: 0.05, max: 2, noNaN: true }), fc.double({ min: 0.3, max: 3, noNaN: true }),
+      (a, share, c, d) => {
+        const b = share * a;
+        const model = system(`states: { x: 1, y: 0 }\nparameters: { lam: 1 }\nequations:
+  x: lam - ${num(a)}*abs(x) - (${num(b)})*x - ${num(c)}*x^3
+  y: x - ${num(d)}*y`);
+        const x2 = bisect((x) => (a + b) * x + c * x ** 3 - 2, 0, 10); // the start at λ = 2, x > 0
+        const trace = traceBranches(model, Float64Array.of(-1), traceSettings(0, -1, 2), [{ state: Float64Array.of(x2, x2 / d), parameter: 2 }]);
+        expect(trace.warnings).toEqual([]);
+        const corners = trace.events.filter((e) => e.corner === true);
+        expect(corners.map((e) => e.type)).toEqual(['fold']);
+        // Found on the old tangent's ray by bisection, so to the corrector's accuracy: 1e-10 of the range.
+        expectClose(corners[0]!.parameter, 0, { abs: 1e-10 }, 'corner at λ = 0 (analytic)');
+        expect(corners[0]!.foldCoefficient).toBeUndefined();
+        const smooth = trace.events.filter((e) => e.corner !== true);
+        const xf = -Math.sqrt((a - b) / (3 * c));
+        const lf = (2 / 3) * (a - b) * Math.abs(xf);
+        expect(smooth.map((e) => e.type)).toEqual(lf < 2 ? ['fold'] : []);
+        if (lf < 2) expectClose(smooth[0]!.parameter, lf, { abs: 1e-9 * (1 + lf) }, 'λ_f = (2/3)(a − b)|x_f| (analytic)');
+        for (const q of trace.branches[0]!.points) {
+          const x = q.state[0]!;
+          expectClose(q.parameter, a * Math.abs(x) + b * x + c * x ** 3, { abs: 1e-8 * (1 + Math.abs(q.parameter)) }, 'λ = a|x| + bx + cx³ (analytic)');
+        }
+      },
+    ), repeatable(31_415, 30));
   });
 });
 
