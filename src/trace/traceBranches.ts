@@ -155,6 +155,7 @@ export function traceBranches(
     for (const found of [...fresh.filter((f) => !onCorner.has(f)), ...fresh.filter((f) => onCorner.has(f)).sort(cornerFirst)]) {
       const z = found.located.z;
       const corner = onCorner.has(found);
+      if (alreadyFound(pending, found.type, z, same(z))) continue;
       if (corner && pending.some((e) => e.point.corner === true && distance(e.z, z) <= same(z))) continue;
       const what = corner ? { type: found.type } : describeEvent(ext, work, found, walked.points[found.between[0]]!.t);
       const event = pendingEvent(ext, id, walked.points, found, what);
