@@ -69,6 +69,15 @@ export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): W
   const scratch = cornerScratch(ext);
   const probe = new Float64Array(m);
   const turnOpts = { absTol: settings.absTol, maxIter: settings.maxIter, lengthScale: range };
+  /**
+   * The corrected point z lies past a switch of the model and its tangent leads further away from
+   * it (at a corner where the branch turns back, the tangent oriented along the old one points back
+   * over the switch: pastCorner handles that). Leaves ext.jx at z.
+   */
+  const beyondCorner = (z: Float64Array): boolean => {
+    for (let j = 0; j < m; j++) probe[j] = z[j]! + cornerLength * tNew[j]!;
+    return jacobianJumps(ext, cur.z, probe, scratch) && jacobianJumps(ext, cur.z, z, scratch);
+  };
   /** Why steps of every length failed at `q`: a corner just ahead, or not. */
   const stuckAt = (q: RawPoint): StopReason => {
     for (let j = 0; j < m; j++) probe[j] = q.z[j]! + cornerLength * q.t[j]!;
@@ -84,7 +93,7 @@ export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): W
     const tangent = c.status === 'converged' ? tangentAt(ext, z, cur.t, tNew, work) : undefined;
     const found = tangent !== undefined && tangent.ok;
     const turned = found && dot(cur.t, tNew) < minTurnCos;
-    if (!found || (turned && !(ds <= cornerLength && jacobianJumps(ext, cur.z, z, scratch)))) {
+    if (!found || (turned && !(ds <= cornerLength && beyondCorner(z)))) {
       sawNonFinite ||= c.status === 'non-finite';
       ds *= TRACE.shrinkFactor;
       if (ds >= settings.dsMin) continue;

@@ -237,6 +237,8 @@ equations:
         const lf = (2 / 3) * (a - b) * Math.abs(xf);
         expect(smooth.map((e) => e.type)).toEqual(lf < 2 ? ['fold'] : []);
         if (lf < 2) expectClose(smooth[0]!.parameter, lf, { abs: 1e-9 * (1 + lf) }, 'λ_f = (2/3)(a − b)|x_f| (analytic)');
+        const xs = trace.branches[0]!.points.map((q) => q.state[0]!);
+        expect(Math.min(...xs)).toBeLessThan(-0.1); // through the corner onto the other piece, not back
         for (const q of trace.branches[0]!.points) {
           const x = q.state[0]!;
           expectClose(q.parameter, a * Math.abs(x) + b * x + c * x ** 3, { abs: 1e-8 * (1 + Math.abs(q.parameter)) }, 'λ = a|x| + bx + cx³ (analytic)');
