@@ -22,7 +22,7 @@
  * duplicateTol·σ_i tie).
  */
 import { EQUILIBRIA, NEWTON } from '../defaults.js';
-import { allFinite } from '../linalg/norm.js';
+import { allFinite, largestMagnitudes } from '../linalg/norm.js';
 import { newton, type VectorFunction } from '../solve/newton.js';
 import type { Equilibrium, SolveStatus, System } from '../types.js';
 import { classifyEquilibrium } from './classify.js';
@@ -81,9 +81,7 @@ function sameRoot(a: Float64Array, b: Float64Array, sizes: Float64Array): boolea
 
 /** σ_i: the largest |x_i| over the given states, or 1 where they are all 0. */
 function typicalSizes(states: readonly Float64Array[], n: number): Float64Array {
-  const size = new Float64Array(n);
-  for (const x of states) for (let i = 0; i < n; i++) size[i] = Math.max(size[i]!, Math.abs(x[i]!));
-  return size.map((v) => (v > 0 && Number.isFinite(v) ? v : 1));
+  return largestMagnitudes(states, n).map((v) => (v > 0 ? v : 1));
 }
 
 function insideBox(x: Float64Array, box: Box): boolean {

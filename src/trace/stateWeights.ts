@@ -25,18 +25,13 @@
  * start values of typical size in the model help.
  */
 import { TRACE } from '../defaults.js';
+import { largestMagnitudes } from '../linalg/norm.js';
 
 const ZERO_SIZE = 1e-8;
 
 export function stateWeights(starts: readonly Float64Array[], n: number, from: number, to: number): Float64Array {
   const range = Math.abs(to - from);
-  const size = new Float64Array(n);
-  for (const x of starts) {
-    for (let i = 0; i < n; i++) {
-      const v = Math.abs(x[i]!);
-      if (Number.isFinite(v) && v > size[i]!) size[i] = v;
-    }
-  }
+  const size = largestMagnitudes(starts, n);
   const smallest = TRACE.smallestStateShare * range;
   return Float64Array.from(size, (s) => (s > ZERO_SIZE * range ? Math.max(smallest, Math.min(s, range)) / s : 1));
 }
