@@ -36,7 +36,7 @@ function counts(values: readonly Eigenvalue[]): { unstable: number; unstableComp
   let size = 1;
   for (const v of values) size = Math.max(size, Math.hypot(v.re, v.im));
   const threshold = TRACE.stabilityTol * size;
-  const imagTol = imagTolOf(values);
+  const imagTol = IMAG_TOL * (1 + size);
   let unstable = 0;
   let unstableComplex = 0;
   let complex = 0;
