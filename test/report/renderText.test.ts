@@ -127,6 +127,18 @@ describe('renderJson', () => {
     expect(back.events[0]!.foldCoefficient).toBe(report.events[0]!.foldCoefficient); // bit-exact round trip
   });
 
+  it('lays the file out exactly as JSON.stringify with a two-space indent does', () => {
+    // ECMAScript JSON.stringify(value, null, 2) is the reference layout (a guard for the direct writer).
+    const report = sReport();
+    report.model.title = 'quote " backslash \\ line\nbreak \u2028 <tag> ünïcödé';
+    report.branches[0]!.points[0]!.parameter = -0;
+    report.warnings = [];
+    const text = renderJson(report);
+    expect(text).toBe(`${JSON.stringify(JSON.parse(text), null, 2)}\n`);
+    expect(JSON.parse(text).model.title).toBe(report.model.title);
+    expect(renderJson({ ...report, branches: [] } as Report)).toContain('"branches": []');
+  });
+
   it('orders keys the same way whatever order the report was built in', () => {
     const report = sReport();
     const shuffled = Object.fromEntries(Object.entries(report).reverse()) as unknown as Report;
