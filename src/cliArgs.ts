@@ -12,9 +12,11 @@ export function parseNumber(option: string, text: string): number {
   return v;
 }
 
-export function parsePositiveInteger(option: string, text: string): number {
-  const v = Number(text.trim());
-  if (!Number.isInteger(v) || v < 1) throw new UsageError(message.badInteger(option, text));
+/** A whole number of at least `least` (a count: 1 or more, or 0 or more). */
+export function parseWholeNumber(option: string, text: string, least: 0 | 1 = 1): number {
+  const t = text.trim();
+  const v = t === '' ? NaN : Number(t);
+  if (!Number.isInteger(v) || v < least) throw new UsageError(message.badInteger(option, text, least));
   return v;
 }
 

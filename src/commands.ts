@@ -9,7 +9,7 @@ import { basename, extname, join } from 'node:path';
 import { checkModel, checkText } from './checkModel.js';
 import { equilibriaAt } from './equilibriaAt.js';
 import { BranchtraceError, MarginError, message, UsageError } from './errors.js';
-import { collect, parseAssignment, parseInterval, parseNumber, parsePositiveInteger } from './cliArgs.js';
+import { collect, parseAssignment, parseInterval, parseNumber, parseWholeNumber } from './cliArgs.js';
 import { readModelFile } from './model/loadModel.js';
 import { portraitAt } from './portraitAt.js';
 import type { PortraitWindow } from './portrait/plane.js';
@@ -116,6 +116,7 @@ interface SweepFlags extends Common {
   step?: string;
   maxStep?: string;
   maxPoints?: string;
+  probes?: string;
   warnMargin?: string;
   failMargin?: string;
   plot?: string;
@@ -132,7 +133,8 @@ async function sweepCommand(file: string, f: SweepFlags, worker: SweepWorker): P
     ...overrides(f),
     ...(f.step !== undefined && { step: positive('--step', f.step) }),
     ...(f.maxStep !== undefined && { maxStep: positive('--max-step', f.maxStep) }),
-    ...(f.maxPoints !== undefined && { maxPoints: parsePositiveInteger('--max-points', f.maxPoints) }),
+    ...(f.maxPoints !== undefined && { maxPoints: parseWholeNumber('--max-points', f.maxPoints) }),
+    ...(f.probes !== undefined && { probes: parseWholeNumber('--probes', f.probes, 0) }),
     ...(f.warnMargin !== undefined && { warnMargin: fraction('--warn-margin', f.warnMargin) }),
     ...(f.failMargin !== undefined && { failMargin: fraction('--fail-margin', f.failMargin) }),
   };
@@ -227,6 +229,7 @@ function program(sweepWorker: () => SweepWorker): Command {
     .option('--step <H>', 'first step along the branch (parameter units; default 1% of the range)')
     .option('--max-step <H>', 'largest step along the branch (default 2% of the range)')
     .option('--max-points <N>', 'point budget per branch (default 2000)')
+    .option('--probes <N>', 'search for equilibria also at N evenly spaced values inside the range, to find branches that reach neither end (default 7; 3 for models of more than 20 states; 0: none)')
     .option('--warn-margin <F>', 'warn when the nearest special point is closer than this fraction of the nominal value (default 0.1)')
     .option('--fail-margin <F>', 'exit with status 3 when it is closer than this fraction (default 0: never)')
     .option('--plot <STATES>', 'states to draw, comma-separated, or "norm" (default: every state; the norm for more than eight states)')

@@ -26,8 +26,17 @@ export const EQUILIBRIA = {
   boxTolerance: 0.01,
   /** Cap on Newton iterations over the whole search (deflated solves and polishing together). */
   iterationBudget: 4000,
-  /** Start points for the further searches of a sweep (at the nominal value and the end of the range). */
+  /** Start points for the further searches of a sweep (at the nominal value, the end of the range and the probes). */
   extraStarts: 16,
+  /**
+   * Parameter values inside a sweep's range where equilibria are searched for too (evenly spaced), so
+   * that a branch reaching neither end of the range (an isola) is found: this many for models of up
+   * to `probeStates` states, `probesLarge` above (a search there costs about n³ per Newton step).
+   * Common practice: an isola narrower than the spacing can still be missed (--probes).
+   */
+  probes: 7,
+  probeStates: 20,
+  probesLarge: 3,
   /** Deflated solves from one start point (each found root is deflated and the start reused). */
   solvesPerStart: 4,
 } as const;

@@ -87,7 +87,8 @@ export const message = {
   badAssignment: (option: string, text: string) =>
     `${option} expects NAME=VALUE with a finite number, got "${text}"`,
   badNumber: (option: string, text: string) => `${option} expects a finite number, got "${text}"`,
-  badInteger: (option: string, text: string) => `${option} expects a positive whole number, got "${text}"`,
+  badInteger: (option: string, text: string, least: 0 | 1) =>
+    `${option} expects ${least === 1 ? 'a positive whole number' : 'a whole number (0 or more)'}, got "${text}"`,
   badInterval: (option: string, text: string) =>
     `${option} expects NAME=LO:HI with finite numbers and LO < HI, got "${text}"`,
   badPositive: (option: string, text: string) => `${option} expects a positive number, got "${text}"`,

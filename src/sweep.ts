@@ -2,7 +2,7 @@
  * The parameter sweep, one straight pipeline:
  *
  *   Model ─prepare→ CompiledSystem, parameters, guess      (src/setup.ts, src/compile/)
- *         ─findEquilibria at from, nominal, to→ starts      (src/equilibria/)
+ *         ─findEquilibria at from, nominal, to, probes→ starts (src/equilibria/)
  *         ─traceBranches→ Trace: branches, special points  (src/trace/, src/detect/)
  *         ─buildReport→ Report (margin included)           (src/report/)
  *
@@ -35,6 +35,8 @@ export interface SweepOptions {
   maxStep?: number;
   /** Point budget per branch. */
   maxPoints?: number;
+  /** Evenly spaced values inside the range where equilibria are searched for too (default: probeCount). */
+  probes?: number;
   warnMargin?: number;
   failMargin?: number;
 }
@@ -55,6 +57,25 @@ function newtonAt(system: CompiledSystem, p: Float64Array, x0: Float64Array): Ne
   );
 }
 
+/** How many probes a model of n states gets by default (EQUILIBRIA.probes). */
+export function probeCount(n: number): number {
+  return n <= EQUILIBRIA.probeStates ? EQUILIBRIA.probes : EQUILIBRIA.probesLarge;
+}
+
+/**
+ * Where equilibria are searched for, in this order: the start of the range, the nominal value (if
+ * inside), the end, then `count` evenly spaced values inside (those within a thousandth of the
+ * range of the nominal value are left out: that search is done).
+ */
+export function searchValues(from: number, to: number, nominal: number, count: number): number[] {
+  const lo = Math.min(from, to);
+  const hi = Math.max(from, to);
+  const inside = nominal > lo && nominal < hi;
+  const probes = Array.from({ length: count }, (_, i) => from + ((to - from) * (i + 1)) / (count + 1))
+    .filter((v) => !inside || Math.abs(v - nominal) > 1e-3 * (hi - lo));
+  return [from, ...(inside ? [nominal] : []), to, ...probes];
+}
+
 function settingsFor(k: number, opts: SweepOptions): TraceSettings {
   const overrides: Partial<TraceSettings> = {};
   if (opts.step !== undefined) overrides.ds = opts.step;
@@ -72,22 +93,21 @@ export function sweep(model: Model, opts: SweepOptions, hooks: TraceHooks = {}):
   const nominal = params[k]!;
 
   // 1. Every equilibrium the search finds at the start of the range (the guess is tried first),
-  //    then at the nominal value and at the end of the range, for branches that do not reach the
-  //    start of the range (an isola, or the far side of an S-curve). Starts on a branch already
-  //    traced are skipped by the trace.
+  //    then at the nominal value, at the end of the range and at the probes inside it, for branches
+  //    that do not reach the start of the range (the far side of an S-curve, an isola). Starts on a
+  //    branch already traced are skipped by the trace.
   const at = (lambda: number) => {
     const q = params.slice();
     q[k] = lambda;
     return q;
   };
-  const fromStarts = findEquilibria(system, at(opts.from), { guess, keepOutsideBox: true }).equilibria.map((e) => e.state);
+  const [first, ...others] = searchValues(opts.from, opts.to, nominal, opts.probes ?? probeCount(system.n));
+  const fromStarts = findEquilibria(system, at(first!), { guess, keepOutsideBox: true }).equilibria.map((e) => e.state);
   if (fromStarts.length === 0) {
     const tried = newtonAt(system, at(opts.from), guess);
     throw new NumericalError(message.noEquilibriumAtStart(opts.vary, opts.from, tried.residual, tried.iterations));
   }
-  const lo = Math.min(opts.from, opts.to);
-  const hi = Math.max(opts.from, opts.to);
-  const further = [...(nominal > lo && nominal < hi ? [nominal] : []), opts.to].flatMap((lambda) =>
+  const further = others.flatMap((lambda) =>
     findEquilibria(system, at(lambda), { guess, starts: EQUILIBRIA.extraStarts, keepOutsideBox: true }).equilibria
       .map((e) => ({ state: e.state, parameter: lambda })));
   const starts = [...fromStarts, ...further];
@@ -103,6 +123,7 @@ export function sweep(model: Model, opts: SweepOptions, hooks: TraceHooks = {}):
     warnMargin: opts.warnMargin ?? MARGIN.warn,
     failMargin: opts.failMargin ?? MARGIN.fail,
     nominal,
+    searchedAt: [first!, ...others],
     ...(operating.status === 'converged' && { operatingState: operating.x }),
   });
   return { system, starts, trace, report };

@@ -367,7 +367,8 @@ export interface Report {
   parameter: string;
   unit?: string;
   range: { from: number; to: number };
-  settings: TraceSettings & { warnMargin: number; failMargin: number };
+  /** searchedAt: the parameter values where equilibria were searched for (starts of the branches). */
+  settings: TraceSettings & { warnMargin: number; failMargin: number; searchedAt: number[] };
   branches: ReportBranch[];
   events: ReportEvent[];
   margin: Margin | null;

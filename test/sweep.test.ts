@@ -87,24 +87,27 @@ describe('sweep()', () => {
     }
   });
 
-  it('follows a state that grows where no start shows its size once the model gives its typical size', () => {
+  it('follows a state that grows far from its start values once a probe or the model shows its typical size', () => {
     // Analytic: x' = 16e6·(λ(1 − λ))² − x has the single branch x = 16e6·(λ(1 − λ))², 0 at both ends
-    // and at the nominal λ = 0, 1e6 at λ = 1/2. With start value 0 nothing tells the sweep that x is of
-    // size 1e6, the branch shoots up from the start and the warning says what to do.
+    // and at the nominal λ = 0, 1e6 at λ = 1/2. With start value 0 and no probes nothing tells the sweep
+    // that x is of size 1e6, the branch shoots up from the start and the warning says what to do.
     const text = (start: number) => `states: { x: { start: ${start} } }\nparameters: { lam: 0 }\nequations:\n  x: 16e6*(lam*(1 - lam))^2 - x`;
-    const blind = sweep(loadModel(text(0), 'hump.yaml'), { vary: 'lam', from: 0, to: 1 });
+    const blind = sweep(loadModel(text(0), 'hump.yaml'), { vary: 'lam', from: 0, to: 1, probes: 0 });
     expect(blind.trace.warnings.some((w) => w.includes('give it a start value of that size'))).toBe(true);
-    const { trace } = sweep(loadModel(text(1e6), 'hump.yaml'), { vary: 'lam', from: 0, to: 1 });
-    expect(trace.warnings).toEqual([]);
-    expect(trace.branches).toHaveLength(1);
-    const points = trace.branches[0]!.points;
-    expect(points[0]!.parameter).toBe(0);
-    expect(points[points.length - 1]!.parameter).toBe(1);
-    for (const q of points) {
-      const l = q.parameter;
-      expect(Math.abs(q.state[0]! - 16e6 * (l * (1 - l)) ** 2)).toBeLessThan(1e-9 * 1e6);
+    // The equilibria found at the probes inside the range show the size; so does a start value of that size.
+    for (const [start, probes] of [[0, undefined], [1e6, 0]] as const) {
+      const { trace } = sweep(loadModel(text(start), 'hump.yaml'), { vary: 'lam', from: 0, to: 1, ...(probes !== undefined && { probes }) });
+      expect(trace.warnings).toEqual([]);
+      expect(trace.branches).toHaveLength(1);
+      const points = trace.branches[0]!.points;
+      expect(points[0]!.parameter).toBe(0);
+      expect(points[points.length - 1]!.parameter).toBe(1);
+      for (const q of points) {
+        const l = q.parameter;
+        expect(Math.abs(q.state[0]! - 16e6 * (l * (1 - l)) ** 2)).toBeLessThan(1e-9 * 1e6);
+      }
+      expect(Math.max(...points.map((q) => q.state[0]!))).toBeGreaterThan(0.99e6); // through the top
     }
-    expect(Math.max(...points.map((q) => q.state[0]!))).toBeGreaterThan(0.99e6); // through the top
   });
 
   it('says in the report that a special point sits at a corner of the model and that no normal form applies', () => {
@@ -157,6 +160,33 @@ describe('sweep()', () => {
     expect(report.margin?.below?.parameter).toBe(folds[0]!.parameter);
     expect(report.margin?.below?.relative).toBeCloseTo((10 - expected) / 10, 12);
     expect(report.branches.map((b) => b.id)).toEqual(report.branches.map((_, i) => i + 1));
+  });
+
+  it('finds a closed branch (isola) that reaches neither end of the range nor the nominal value', () => {
+    // Cubic autocatalysis A + 2B -> 3B with decay B -> C in a stirred tank (Gray & Scott 1983), feed of
+    // A only, residence time t. Derived here from the equations: besides b = 0, equilibria satisfy
+    // c b^2 - b + c/t = 0 with c = 1 + k t, so they exist where 2(1 + k t) <= sqrt(t): for k < 1/16 a
+    // closed curve between two folds at sqrt(t) = (1 -+ sqrt(1 - 16k))/(4k) (a = 1/2 at both).
+    const k = 0.05;
+    const model = loadModel([
+      'states:', '  a: 1', '  b: 0',
+      'parameters:', '  t: 5', `  k: ${k}`,
+      'equations:', '  a: (1 - a)/t - a*b^2', '  b: -b/t + a*b^2 - k*b', '',
+    ].join('\n'), 'autocatalysis.yaml');
+    const folds = [1, -1].map((sign) => ((1 - sign * Math.sqrt(1 - 16 * k)) / (4 * k)) ** 2);
+    // Nominal t = 5 and both ends lie outside [7.64, 52.36]: only the probes inside the range reach the isola.
+    const { report } = sweep(model, { vary: 't', from: 1, to: 60 });
+    expect(report.branches).toHaveLength(2);
+    expect(report.branches[1]!.stopped).toBe('closed loop');
+    const found = report.events.filter((e) => e.type === 'fold').map((e) => e.parameter).sort((x, y) => x - y);
+    expect(found).toHaveLength(2);
+    for (const [i, t] of folds.entries()) expect(Math.abs(found[i]! - t)).toBeLessThan(1e-10 * t);
+    expect(report.settings.searchedAt.slice(0, 3)).toEqual([1, 5, 60]);
+    expect(report.settings.searchedAt).toHaveLength(3 + 7);
+    // Without probes the same sweep sees only the trivial branch b = 0.
+    const bare = sweep(model, { vary: 't', from: 1, to: 60, probes: 0 }).report;
+    expect(bare.branches).toHaveLength(1);
+    expect(bare.settings.searchedAt).toEqual([1, 5, 60]);
   });
 
   it('words a fold by what is lost: the reactor\'s upper fold joins two unstable states', () => {

@@ -14,6 +14,8 @@ export interface ReportOptions {
   failMargin: number;
   /** Design value of the varied parameter; defaults to its value in the model. */
   nominal?: number;
+  /** Parameter values where equilibria were searched for (the branches' starts); default: the range's ends. */
+  searchedAt?: readonly number[];
   /** The state the plant runs at, to pick the branch for the design margin (see computeMargin). */
   operatingState?: Float64Array;
 }
@@ -38,7 +40,10 @@ export function buildReport(trace: Trace, info: ModelInfo, opts: ReportOptions):
     model: info,
     parameter: opts.parameter,
     range: { from: trace.settings.from, to: trace.settings.to },
-    settings: { ...trace.settings, warnMargin: opts.warnMargin, failMargin: opts.failMargin },
+    settings: {
+      ...trace.settings, warnMargin: opts.warnMargin, failMargin: opts.failMargin,
+      searchedAt: [...(opts.searchedAt ?? [trace.settings.from, trace.settings.to])],
+    },
     branches: trace.branches.map((b) => reportBranch(b, trace.events, names)),
     events: trace.events.map((e) => reportEvent(e, names, touchesStable(e, trace.branches))),
     margin: nominal === undefined ? null : computeMargin(trace, {

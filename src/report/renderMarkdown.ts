@@ -31,6 +31,8 @@ function sweepSection(r: Report): string[] {
     `- Varied parameter: ${md(withUnit(r.parameter, r.unit))} from ${formatNumber(r.range.from)} to ${formatNumber(r.range.to)}.`,
     `- Other parameters: ${others.length === 0 ? 'none' : others.map((p) => `${md(p.name)} = ${md(valueWithUnit(formatNumber(p.value), p.unit))}`).join(', ')}.`,
     `- Step length: first ${formatNumber(s.ds)}, smallest ${formatNumber(s.dsMin)}, largest ${formatNumber(s.dsMax)}; at most ${s.maxPoints} points per branch and ${s.maxBranches} branches.`,
+    `- Starts: equilibria searched for at ${md(r.parameter)} = ${[...s.searchedAt].sort((a, b) => a - b).map((v) => formatNumber(v)).join(', ')}; ` +
+      'a branch that reaches none of these values (a closed curve narrower than their spacing) is not found.',
     `- Corrector: tolerance ${formatNumber(s.absTol)}, at most ${s.maxIter} Newton iterations.`,
     `- Margins: warning below ${percent(s.warnMargin)} of the nominal value; ` +
       (s.failMargin > 0 ? `failing below ${percent(s.failMargin)}.` : 'no failing margin (--fail-margin not set).'),
