@@ -180,6 +180,8 @@ describe('bad input: one line, non-zero status, nothing written', () => {
       message.unknownParameter('Dx', ['Da', 'B', 'beta', 'coolant'])],
     ['from equal to to', ['sweep', REACTOR, '--vary', 'Da', '--from', '0.1', '--to', '0.1'], 2, message.emptyRange(0.1, 0.1)],
     ['a value that is not a number', ['sweep', REACTOR, '--vary', 'Da', '--from', 'abc', '--to', '1'], 2, message.badNumber('--from', 'abc')],
+    ['a negative --probes', ['sweep', REACTOR, '--vary', 'Da', '--from', '0', '--to', '1', '--probes', '-1'], 2, message.badInteger('--probes', '-1', 0)],
+    ['a fractional --max-points', ['sweep', REACTOR, '--vary', 'Da', '--from', '0', '--to', '1', '--max-points', '2.5'], 2, message.badInteger('--max-points', '2.5', 1)],
     ['a malformed --set', ['equilibria', REACTOR, '--set', 'Da'], 2, message.badAssignment('--set', 'Da')],
     ['an unknown state in --box', ['equilibria', REACTOR, '--box', 'conversoin=0:1'], 2,
       message.unknownState('conversoin', ['conversion', 'temperature'])],
