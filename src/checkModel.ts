@@ -3,6 +3,7 @@
  * the residual there and the largest mismatch between the exact Jacobian and central differences.
  */
 import { checkJacobian, type JacobianCheck } from './compile/checkJacobian.js';
+import { conservedQuantities, weightedSum, type ConservedQuantity } from './equilibria/conservedQuantities.js';
 import { formatNumber } from './report/formatNumber.js';
 import { textTable } from './report/renderEquilibria.js';
 import { prepare, type Overrides } from './setup.js';
@@ -14,13 +15,18 @@ export interface ModelCheck {
   jacobian: JacobianCheck;
   guess: Float64Array;
   params: Float64Array;
+  /** Weighted sums of the states whose rate of change does not depend on the state (conservedQuantities.ts). */
+  conserved: ConservedQuantity[];
 }
 
 export function checkModel(model: Model, overrides: Overrides = {}): ModelCheck {
   const { system, params, guess } = prepare(model, overrides);
   const residual = new Float64Array(system.n);
   system.rhs(guess, params, residual);
-  return { model, residual, jacobian: checkJacobian(system, guess, params), guess, params };
+  return {
+    model, residual, jacobian: checkJacobian(system, guess, params), guess, params,
+    conserved: conservedQuantities(system, params, guess),
+  };
 }
 
 export function checkText(c: ModelCheck): string {
@@ -47,6 +53,9 @@ export function checkText(c: ModelCheck): string {
     `largest |f| at the start guess: ${formatNumber(Math.max(...c.residual.map(Math.abs)), 4)}`,
     `exact Jacobian vs central differences: largest relative mismatch ${c.jacobian.maxRelError.toExponential(2)} ` +
       `(d f_${names[w.row]} / d ${names[w.col]}), absolute ${c.jacobian.maxAbsError.toExponential(2)}`,
+    ...c.conserved.map((q) => q.rate === 0
+      ? `warning: ${weightedSum(names, q.weights)} is conserved: equilibria are not isolated, and equilibria and sweep refuse the model until one of these states is replaced by the total minus the others`
+      : `warning: ${weightedSum(names, q.weights)} changes at the same rate ${formatNumber(q.rate, 6)} at every state: the model has no equilibrium`),
     '',
   ].join('\n');
 }

@@ -3,7 +3,7 @@
  *   Model ─prepare→ system, parameters, guess ─findEquilibria→ classified equilibria.
  */
 import { findEquilibria, type EquilibriumSearch } from './equilibria/findEquilibria.js';
-import { prepare, searchBox, type Overrides, type Prepared } from './setup.js';
+import { assertIsolatedEquilibria, prepare, searchBox, type Overrides, type Prepared } from './setup.js';
 import type { Model } from './types.js';
 
 export interface EquilibriaAtOptions extends Overrides {
@@ -13,6 +13,7 @@ export interface EquilibriaAtOptions extends Overrides {
 
 export function equilibriaAt(model: Model, opts: EquilibriaAtOptions = {}): Prepared & { search: EquilibriumSearch } {
   const prepared = prepare(model, opts);
+  assertIsolatedEquilibria(prepared);
   const box = searchBox(model, prepared.guess, opts.box ?? []);
   // Without --box the box is only where start points go; every equilibrium found is reported.
   const keepOutsideBox = (opts.box ?? []).length === 0;

@@ -106,6 +106,13 @@ export const message = {
     `${at}: ${fn}() takes ${expected} argument${expected === '1' ? '' : 's'}, got ${got}`,
   nonFiniteEquation: (at: string, state: string, value: number, values: string) =>
     `${at}: the equation for "${state}" gives ${value} at ${values}`,
+  conservedQuantity: (at: string, sums: readonly string[]) =>
+    `${at}: the model conserves ${sums.join(' and ')} (${sums.length === 1 ? 'its rate of change is' : 'their rates of change are'} ` +
+    '0 at every state), so the equilibria are not isolated and cannot be found or followed one at a time: for each ' +
+    'conserved sum, replace one of its states by the total (a new parameter) minus the others',
+  constantDrift: (at: string, sum: string, rate: number) =>
+    `${at}: ${sum} changes at the same rate ${rate} at every state, so the model has no equilibrium: check the ` +
+    'equations of these states',
   nonFiniteJacobian: (at: string, state: string, by: string, value: number, values: string) =>
     `${at}: the derivative of the equation for "${state}" with respect to "${by}" gives ${value} at ${values}`,
 

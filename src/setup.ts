@@ -5,9 +5,10 @@
  */
 import { assertFiniteAt } from './compile/assertFiniteAt.js';
 import { compileModel, type CompiledSystem } from './compile/compileModel.js';
+import { conservedQuantities, weightedSum, type ConservedQuantity } from './equilibria/conservedQuantities.js';
 import { boxAround, type Box } from './equilibria/startPoints.js';
 import { EQUILIBRIA } from './defaults.js';
-import { message, UsageError } from './errors.js';
+import { message, ModelError, UsageError, where } from './errors.js';
 import type { Model } from './types.js';
 
 export interface Overrides {
@@ -46,6 +47,22 @@ export function prepare(model: Model, overrides: Overrides = {}): Prepared {
   const system = compileModel(model);
   assertFiniteAt(system, guess, params);
   return { system, params, guess };
+}
+
+/**
+ * Stop with a ModelError, naming the model file and the equation of the first state involved, when a
+ * weighted sum of the states is conserved (equilibria come in families, not one by one) or drifts at
+ * a constant rate (no equilibrium): see conservedQuantities.ts. The equilibrium search and the sweep
+ * need isolated equilibria.
+ */
+export function assertIsolatedEquilibria({ system, params, guess }: Prepared): void {
+  const found = conservedQuantities(system, params, guess);
+  if (found.length === 0) return;
+  const names = system.info.states.map((s) => s.name);
+  const at = (q: ConservedQuantity) => where(system.equationSources[q.weights.findIndex((w) => w !== 0)] ?? { file: system.info.file });
+  const drifting = found.find((q) => q.rate !== 0);
+  if (drifting !== undefined) throw new ModelError(message.constantDrift(at(drifting), weightedSum(names, drifting.weights), drifting.rate));
+  throw new ModelError(message.conservedQuantity(at(found[0]!), found.map((q) => weightedSum(names, q.weights))));
 }
 
 /** The search box: the default box around the guess, with `--box NAME=LO:HI` entries replacing single states. */

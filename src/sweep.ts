@@ -14,7 +14,7 @@ import { EQUILIBRIA, MARGIN, NEWTON } from './defaults.js';
 import { findEquilibria } from './equilibria/findEquilibria.js';
 import { message, NumericalError, UsageError } from './errors.js';
 import { buildReport } from './report/buildReport.js';
-import { parameterIndex, prepare } from './setup.js';
+import { assertIsolatedEquilibria, parameterIndex, prepare } from './setup.js';
 import { newton } from './solve/newton.js';
 import { traceBranches, type StartEquilibrium } from './trace/traceBranches.js';
 import { traceSettings } from './trace/traceSettings.js';
@@ -89,7 +89,9 @@ function settingsFor(k: number, opts: SweepOptions): TraceSettings {
 export function sweep(model: Model, opts: SweepOptions, hooks: TraceHooks = {}): SweepResult {
   const k = parameterIndex(model, opts.vary);
   if (!(opts.from !== opts.to)) throw new UsageError(message.emptyRange(opts.from, opts.to));
-  const { system, params, guess } = prepare(model, opts);
+  const prepared = prepare(model, opts);
+  assertIsolatedEquilibria(prepared);
+  const { system, params, guess } = prepared;
   const nominal = params[k]!;
 
   // 1. Every equilibrium the search finds at the start of the range (the guess is tried first),

@@ -208,6 +208,20 @@ describe('bad input: one line, non-zero status, nothing written', () => {
     expect(oneLineError(r)).toMatch(new RegExp(`^branchtrace: ${file.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}:6:\\d+: .*unknown name "y"`));
   });
 
+  it('a model that conserves a sum of its states is refused by sweep with the sum named, and check warns about it', () => {
+    // Kermack & McKendrick (1927) without births or deaths: S + I + R is constant (analytic).
+    const file = writeModel('states: { S: 0.9, I: 0.1, R: 0 }\nparameters: { beta: 0.3, gamma: 0.1 }\nequations:\n' +
+      '  S: -beta*S*I\n  I: beta*S*I - gamma*I\n  R: gamma*I\n');
+    const cwd = tempDir('conserved');
+    const r = runCli(['sweep', file, '--vary', 'beta', '--from', '0.1', '--to', '0.5'], cwd);
+    expect(r.status).toBe(2);
+    expect(oneLineError(r)).toBe(`branchtrace: ${message.conservedQuantity(`${file}:4:6`, ['S + I + R'])}`);
+    expect(existsSync(join(cwd, 'out'))).toBe(false);
+    const check = runCli(['check', file]);
+    expect(check.status).toBe(0);
+    expect(check.stdout).toMatch(/^warning: S \+ I \+ R is conserved: equilibria are not isolated/m);
+  });
+
   it('no equilibrium at the start of the range is a numerical error (status 3)', () => {
     // x' = p − x² has no real equilibrium for p < 0 (analytic).
     const file = writeModel('states:\n  x: 1\nparameters:\n  p: 1\nequations:\n  x: p - x^2\n');
