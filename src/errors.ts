@@ -87,6 +87,8 @@ export const message = {
   badAssignment: (option: string, text: string) =>
     `${option} expects NAME=VALUE with a finite number, got "${text}"`,
   badNumber: (option: string, text: string) => `${option} expects a finite number, got "${text}"`,
+  startOutsideBounds: (name: string, value: number, min?: number, max?: number) =>
+    `--start ${name}=${value} lies outside the bounds the model gives ${name} (${min ?? '-infinity'} to ${max ?? 'infinity'})`,
   badInteger: (option: string, text: string, least: 0 | 1) =>
     `${option} expects ${least === 1 ? 'a positive whole number' : 'a whole number (0 or more)'}, got "${text}"`,
   badInterval: (option: string, text: string) =>
@@ -159,6 +161,9 @@ export const message = {
   modelUnknownField: (name: string, field: string, known: readonly string[]) =>
     `unknown field "${field}" for "${name}"${didYouMean(field, known)} (fields: ${known.join(', ')})`,
   modelMissingField: (name: string, field: string) => `"${name}" needs a "${field}"`,
+  modelBadBounds: (name: string, min: number, max: number) => `min of "${name}" (${min}) must be below its max (${max})`,
+  modelStartOutsideBounds: (name: string, start: number, min?: number, max?: number) =>
+    `start of "${name}" (${start}) must lie within its bounds (${min ?? '-infinity'} to ${max ?? 'infinity'})`,
   modelBadExpression: (name: string) => `the expression for "${name}" must be text or a number`,
   modelInExpression: (what: string, section: string, name: string) => `${what} (in ${section}.${name})`,
   modelUnknownSymbol: (name: string, known: readonly string[]) =>
@@ -201,6 +206,8 @@ export const message = {
   traceLandFailed: (param: string, bound: number, status: string, residual: number, iterations: number) =>
     `could not place the last point exactly on ${param} = ${bound}: Newton ${status} after ` +
     `${countOf(iterations, 'iteration')} (residual ${residual.toExponential(2)})`,
+  traceStateBoundFailed: (state: string, bound: number, param: string, at: number) =>
+    `the branch reaches the bound ${state} = ${bound} just after ${param} = ${at}, but the point on it could not be located; the branch ends at the last point before it`,
   traceHiddenCrossings: (param: string, a: number, b: number) =>
     `between ${param} = ${a.toPrecision(8)} and ${b.toPrecision(8)} several eigenvalues cross the imaginary ` +
     `axis together even at the smallest step (a degenerate point, e.g. a double zero eigenvalue); it is not located`,

@@ -43,7 +43,13 @@ export function prepare(model: Model, overrides: Overrides = {}): Prepared {
   const params = Float64Array.from(model.parameters.map((q) => q.value));
   for (const [name, value] of Object.entries(overrides.set ?? {})) params[parameterIndex(model, name)] = value;
   const guess = Float64Array.from(model.states.map((s) => s.start));
-  for (const [name, value] of Object.entries(overrides.start ?? {})) guess[stateIndex(model, name)] = value;
+  for (const [name, value] of Object.entries(overrides.start ?? {})) {
+    const state = model.states[stateIndex(model, name)]!;
+    if ((state.min !== undefined && value < state.min) || (state.max !== undefined && value > state.max)) {
+      throw new UsageError(message.startOutsideBounds(name, value, state.min, state.max));
+    }
+    guess[stateIndex(model, name)] = value;
+  }
   const system = compileModel(model);
   assertFiniteAt(system, guess, params);
   return { system, params, guess };

@@ -52,6 +52,9 @@ export interface StateDef {
   name: string;
   /** Start guess. */
   start: number;
+  /** Bounds (a concentration cannot be negative): equilibria outside are not reported, branches end on them. */
+  min?: number;
+  max?: number;
   unit?: string;
   about?: string;
   where: SourceRef;
@@ -124,7 +127,7 @@ export interface ModelInfo {
   file: string;
   title?: string;
   about?: string;
-  states: { name: string; start: number; unit?: string; about?: string }[];
+  states: { name: string; start: number; min?: number; max?: number; unit?: string; about?: string }[];
   parameters: { name: string; value: number; unit?: string; about?: string }[];
 }
 
@@ -200,7 +203,7 @@ export interface TracePoint {
 }
 
 export const STOP_REASONS = [
-  'left range', 'closed loop', 'point budget', 'corner', 'step too small', 'non-finite', 'interrupted',
+  'left range', 'state bound', 'closed loop', 'point budget', 'corner', 'step too small', 'non-finite', 'interrupted',
 ] as const;
 export type StopReason = (typeof STOP_REASONS)[number];
 

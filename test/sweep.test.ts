@@ -189,6 +189,74 @@ describe('sweep()', () => {
     expect(bare.settings.searchedAt).toEqual([1, 5, 60]);
   });
 
+  it('ends a branch where a state reaches a bound the model gives it: the chemostat\'s biomass at washout', () => {
+    // Chemostat with Monod growth (Monod 1950): s' = D(s0 − s) − mu s x/((K + s) Y), x' = (mu s/(K + s) − D) x.
+    // Analytic: the washout branch x = 0, s = s0 for every D, and the operating branch s = K D/(mu − D),
+    // x = Y (s0 − s), which meets it at the transcritical point D* = mu s0/(K + s0) and runs off to
+    // infinity as D → mu beyond it. With x ≥ 0 and s ≥ 0 the operating branch ends on x = 0 at D*.
+    const text = (bounds: string) => [
+      `states: { s: { start: 1${bounds} }, x: { start: 1${bounds} } }`,
+      'parameters: { D: 0.3, s0: 10, mu: 0.5, K: 1, Y: 0.5 }',
+      'equations:', '  s: D*(s0 - s) - mu*s/(K + s)*x/Y', '  x: (mu*s/(K + s) - D)*x', '',
+    ].join('\n');
+    const star = (0.5 * 10) / (1 + 10);
+    const { report, trace } = sweep(loadModel(text(', min: 0'), 'chemostat.yaml'), { vary: 'D', from: 0.05, to: 0.6 });
+    expect(trace.warnings).toEqual([]);
+    expect(report.branches.map((b) => b.stopped)).toEqual(['state bound', 'left range']);
+    const operating = report.branches[0]!.points;
+    const end = operating[operating.length - 1]!;
+    expect(Math.abs(end.parameter - star)).toBeLessThan(1e-9 * star);
+    expect(Math.abs(end.state.x!)).toBeLessThan(1e-9);
+    for (const q of operating) {
+      expect(q.state.x!).toBeGreaterThan(-1e-9);
+      expect(Math.abs(q.state.s! - q.parameter / (0.5 - q.parameter))).toBeLessThan(1e-7);
+    }
+    // The transcritical point, found on the washout branch, is the operating branch's margin too.
+    expect(report.events.map((e) => [e.type, e.branch])).toEqual([['transcritical', 2]]);
+    expect(Math.abs(report.events[0]!.parameter - star)).toBeLessThan(1e-10 * star);
+    expect(report.margin?.branch).toBe(1);
+    expect(report.margin?.above?.event).toBe(1);
+    // Without bounds the same branch goes on to negative biomass.
+    const free = sweep(loadModel(text(''), 'chemostat.yaml'), { vary: 'D', from: 0.05, to: 0.6, maxPoints: 200 }).report;
+    expect(free.branches[0]!.points.some((q) => q.state.x! < -1)).toBe(true);
+  });
+
+  it('keeps an angle within the bounds it is given: one branch of a machine against an infinite bus', () => {
+    // Swing equation (classical machine model): equilibria sin(delta) = P/Pmax, omega = 0, repeating every
+    // 2 pi; within [-pi, pi] one branch from delta = 0 to delta = pi at P = 0 with its fold at P = Pmax (analytic).
+    const model = loadModel([
+      'states: { delta: { start: 0.3, min: -3.141592653589793, max: 3.141592653589793 }, omega: 0 }',
+      'parameters: { P: 0.8, Pmax: 1.2, M: 0.1, Dmp: 0.05 }',
+      'equations:', '  delta: omega', '  omega: (P - Pmax*sin(delta) - Dmp*omega)/M', '',
+    ].join('\n'), 'machine.yaml');
+    const { report } = sweep(model, { vary: 'P', from: 0, to: 1.5 });
+    expect(report.branches).toHaveLength(1);
+    expect(report.events.map((e) => e.type)).toEqual(['fold']);
+    expect(Math.abs(report.events[0]!.parameter - 1.2)).toBeLessThan(1e-10);
+    const points = report.branches[0]!.points;
+    expect([points[0]!.state.delta, points[points.length - 1]!.state.delta].map((d) => Math.abs(d!)).sort())
+      .toEqual([0, Math.PI]);
+  });
+
+  it('follows only the half of a pitchfork that lies within a bound', () => {
+    // x' = lam x − x³ with x ≥ 0: besides x = 0, the branch x = sqrt(lam) only (analytic), which ends on
+    // the bound at the pitchfork (0, 0). There the bound x = 0 is the other branch and the hyperplanes the
+    // end is located on meet it along a line: the end point is found only to about the square of a step.
+    const model = loadModel('states: { x: { start: 0, min: 0 } }\nparameters: { lam: -1 }\nequations:\n  x: lam*x - x^3\n', 'half.yaml');
+    for (const probes of [0, 7]) {
+      const { report, trace } = sweep(model, { vary: 'lam', from: -1, to: 1, probes });
+      expect(trace.warnings).toEqual([]);
+      expect(report.events.map((e) => e.type)).toEqual(['pitchfork']);
+      expect(report.branches).toHaveLength(2);
+      const half = report.branches[1]!.points;
+      for (const q of half) expect(q.state.x!).toBeGreaterThanOrEqual(0);
+      const ends = [half[0]!, half[half.length - 1]!].sort((a, b) => a.parameter - b.parameter);
+      expect(ends[0]!.parameter).toBeLessThan(1e-4);
+      expect(ends[1]!.parameter).toBe(1);
+      for (const q of half.filter((p) => p.parameter > 1e-3)) expect(Math.abs(q.state.x! - Math.sqrt(q.parameter))).toBeLessThan(1e-8);
+    }
+  });
+
   it('words a fold by what is lost: the reactor\'s upper fold joins two unstable states', () => {
     // Uppal, Ray & Poore (1974) form with B = 14, beta = 2 (models/cooled-tank-reactor.yaml): along the
     // S-curve the lower sheet is stable up to the fold near Da = 0.1057; the middle sheet is a saddle and

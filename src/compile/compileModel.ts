@@ -100,7 +100,12 @@ export function modelInfo(model: Model): ModelInfo {
     file: model.file,
     ...(model.title !== undefined && { title: model.title }),
     ...(model.about !== undefined && { about: model.about }),
-    states: model.states.map((s) => ({ name: s.name, start: s.start, ...optional(s) })),
+    states: model.states.map((s) => ({
+      name: s.name, start: s.start,
+      ...(s.min !== undefined && { min: s.min }),
+      ...(s.max !== undefined && { max: s.max }),
+      ...optional(s),
+    })),
     parameters: model.parameters.map((q) => ({ name: q.name, value: q.value, ...optional(q) })),
   };
 }

@@ -27,7 +27,7 @@ import { newton, type VectorFunction } from '../solve/newton.js';
 import type { Equilibrium, SolveStatus, System } from '../types.js';
 import { classifyEquilibrium } from './classify.js';
 import { deflate } from './deflation.js';
-import { boxAround, startPoints, type Box } from './startPoints.js';
+import { boxAround, clipBox, startPoints, stateBounds, type Box } from './startPoints.js';
 
 export interface FindEquilibriaOptions {
   box?: Box;
@@ -54,6 +54,8 @@ export interface EquilibriumSearchDiagnostics {
   polishFailed: number;
   duplicates: number;
   outsideBox: number;
+  /** Roots beyond the bounds the model gives its states (dropped). */
+  outsideBounds: number;
   nonFiniteJacobian: number;
   /** Newton iterations used over the whole search, and the cap. */
   iterations: number;
@@ -88,6 +90,15 @@ function insideBox(x: Float64Array, box: Box): boolean {
   for (let i = 0; i < x.length; i++) {
     const slack = EQUILIBRIA.boxTolerance * (box.hi[i]! - box.lo[i]!);
     if (!(x[i]! >= box.lo[i]! - slack && x[i]! <= box.hi[i]! + slack)) return false;
+  }
+  return true;
+}
+
+/** Inside the model's bounds, or beyond them by no more than rounding (1e-9 of the state's typical size). */
+function withinBounds(x: Float64Array, bounds: Box, sizes: Float64Array): boolean {
+  for (let i = 0; i < x.length; i++) {
+    const slack = 1e-9 * sizes[i]!;
+    if (!(x[i]! >= bounds.lo[i]! - slack && x[i]! <= bounds.hi[i]! + slack)) return false;
   }
   return true;
 }
@@ -127,7 +138,9 @@ function guessScaleBox(guess: Float64Array, box: Box): Box | null {
 export function findEquilibria(system: System, p: Float64Array, opts: FindEquilibriaOptions = {}): EquilibriumSearch {
   const n = system.n;
   const guess = opts.guess ?? Float64Array.from(system.info.states.map((s) => s.start));
-  const box = opts.box ?? boxAround(guess, EQUILIBRIA.boxRelative, EQUILIBRIA.boxAbsolute);
+  // Start points only where the model allows states to be (its min and max), and no root beyond them.
+  const bounds = stateBounds(system.info.states);
+  const box = clipBox(opts.box ?? boxAround(guess, EQUILIBRIA.boxRelative, EQUILIBRIA.boxAbsolute), bounds);
   const count = opts.starts ?? EQUILIBRIA.starts;
   const inner = guessScaleBox(guess, box);
   const starts = [
@@ -141,7 +154,7 @@ export function findEquilibria(system: System, p: Float64Array, opts: FindEquili
   const d: EquilibriumSearchDiagnostics = {
     box, startsUsed: 0, startsPlanned: starts.length, solves: 0,
     outcomes: { converged: 0, 'max-iter': 0, singular: 0, 'non-finite': 0, stalled: 0 },
-    polishFailed: 0, duplicates: 0, outsideBox: 0, nonFiniteJacobian: 0,
+    polishFailed: 0, duplicates: 0, outsideBox: 0, outsideBounds: 0, nonFiniteJacobian: 0,
     iterations: 0, iterationBudget: EQUILIBRIA.iterationBudget, budgetExhausted: false,
   };
   const deflated: Float64Array[] = [];
@@ -174,6 +187,10 @@ export function findEquilibria(system: System, p: Float64Array, opts: FindEquili
         break;
       }
       deflated.push(polished.x);
+      if (!withinBounds(polished.x, bounds, sizes)) {
+        d.outsideBounds += 1;
+        continue;
+      }
       if (!insideBox(polished.x, box)) {
         d.outsideBox += 1;
         if (opts.keepOutsideBox !== true) continue;

@@ -59,3 +59,17 @@ export function boxAround(start: Float64Array, relative: number, absolute: numbe
   }
   return { lo, hi };
 }
+
+/** The bounds the model gives its states (min, max), ±Infinity where it gives none. */
+export function stateBounds(states: readonly { min?: number; max?: number }[]): Box {
+  return {
+    lo: Float64Array.from(states, (q) => q.min ?? -Infinity),
+    hi: Float64Array.from(states, (q) => q.max ?? Infinity),
+  };
+}
+
+/** The box cut down to the bounds (an interval wholly outside them shrinks to the nearer bound). */
+export function clipBox(box: Box, bounds: Box): Box {
+  const clip = (v: number, i: number) => Math.min(Math.max(v, bounds.lo[i]!), bounds.hi[i]!);
+  return { lo: box.lo.map(clip), hi: box.hi.map(clip) };
+}

@@ -1,6 +1,8 @@
 /**
  * The `states` and `parameters` sections: each entry is a number, or a mapping with the number
- * (`start` for states, `value` for parameters) and optional `unit` and `about` text.
+ * (`start` for states, `value` for parameters) and optional `unit` and `about` text; a state may
+ * also have bounds `min` and/or `max` (a concentration cannot be negative, an angle stays within a
+ * turn), with min < max and the start inside them.
  */
 import { isMap, isScalar, type Node, type YAMLMap } from 'yaml';
 import { message, where } from '../errors.js';
@@ -14,6 +16,9 @@ export interface Quantity {
   number: number;
   unit?: string;
   about?: string;
+  /** Bounds of a state (none for parameters). */
+  min?: number;
+  max?: number;
   where: SourceRef;
 }
 
@@ -31,7 +36,7 @@ function finiteNumber(source: ModelSource, node: Node | null, name: string, fiel
 }
 
 function readDetailed(source: ModelSource, map: YAMLMap, name: string, field: 'start' | 'value'): Omit<Quantity, 'where'> {
-  const known = [field, 'unit', 'about'];
+  const known = field === 'start' ? [field, 'min', 'max', 'unit', 'about'] : [field, 'unit', 'about'];
   const seen = new Map<string, MapEntry>();
   for (const entry of mapEntries(map)) {
     if (!known.includes(entry.key)) {
@@ -43,6 +48,15 @@ function readDetailed(source: ModelSource, map: YAMLMap, name: string, field: 's
   }
   if (!seen.has(field)) throw source.error(map, message.modelMissingField(name, field));
   const q: Omit<Quantity, 'where'> = { name, number: finiteNumber(source, seen.get(field)?.value ?? null, name, field) };
+  for (const side of ['min', 'max'] as const) {
+    if (seen.has(side)) q[side] = finiteNumber(source, seen.get(side)?.value ?? null, name, side);
+  }
+  if (q.min !== undefined && q.max !== undefined && !(q.min < q.max)) {
+    throw source.error(seen.get('max')!.value, message.modelBadBounds(name, q.min, q.max));
+  }
+  if ((q.min !== undefined && q.number < q.min) || (q.max !== undefined && q.number > q.max)) {
+    throw source.error(seen.get(field)!.value, message.modelStartOutsideBounds(name, q.number, q.min, q.max));
+  }
   if (seen.has('unit')) q.unit = textField(source, seen.get('unit')?.value ?? null, 'unit');
   if (seen.has('about')) q.about = textField(source, seen.get('about')?.value ?? null, 'about');
   return q;

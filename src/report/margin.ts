@@ -25,7 +25,9 @@ interface Crossing {
  *   over all branches. Without it, the first crossing in arclength order on the first branch that
  *   started from an equilibrium (origin "start") and spans the nominal value.
  * - Sides: walking along that branch from the operating point, the first special point in each
- *   direction. Between special points the parameter moves monotonically (folds are special points),
+ *   direction. A special point found on another branch counts where this branch passes through it
+ *   (a branch point, seen from the branch switched to, or a branch that ends on a state bound
+ *   exactly where it meets the washout branch there). Between special points the parameter moves monotonically (folds are special points),
  *   so the two lie on opposite sides of the nominal value; each is filed as below or above by its
  *   parameter (should both fall on one side, the nearer is kept).
  * - distance = |λ_special − nominal|, relative = distance/|nominal| (distance itself when nominal = 0).
@@ -44,7 +46,7 @@ export function computeMargin(trace: Trace, opts: MarginOptions): Margin {
       nearestRelative: null, status: 'nominal outside range',
     };
   }
-  const { below, above } = nearestSides(crossing, trace.events, opts.nominal);
+  const { below, above } = nearestSides(crossing, trace, opts.nominal);
   const sides = [below, above].filter((s): s is MarginSide => s !== null);
   const nearestRelative = sides.length === 0 ? null : Math.min(...sides.map((s) => s.relative));
   const status: Margin['status'] = nearestRelative === null ? 'no special point'
@@ -120,13 +122,16 @@ function eventPosition(e: SpecialPoint, branch: Branch): number {
 }
 
 function nearestSides(
-  crossing: Crossing, events: readonly SpecialPoint[], nominal: number,
+  crossing: Crossing, trace: Trace, nominal: number,
 ): { below: MarginSide | null; above: MarginSide | null } {
   let forward: { e: SpecialPoint; gap: number } | null = null;
   let backward: { e: SpecialPoint; gap: number } | null = null;
-  for (const e of events) {
-    if (e.branch !== crossing.branch.id || !Number.isFinite(e.parameter)) continue;
-    const gap = eventPosition(e, crossing.branch) - crossing.position;
+  const passes = throughPoints(trace);
+  for (const e of trace.events) {
+    if (!Number.isFinite(e.parameter)) continue;
+    const position = e.branch === crossing.branch.id ? eventPosition(e, crossing.branch) : passes(e, crossing.branch);
+    if (position === null) continue;
+    const gap = position - crossing.position;
     if (gap >= 0 && (forward === null || gap < forward.gap)) forward = { e, gap };
     if (gap < 0 && (backward === null || -gap < backward.gap)) backward = { e, gap: -gap };
   }
@@ -142,6 +147,31 @@ function nearestSides(
     }
   }
   return { below, above };
+}
+
+/**
+ * Where a branch passes through a special point found on another branch: the index of its point
+ * at the special point (parameter within 1e-7 of max(|λ|, a thousandth of the range), every state
+ * within 1e-6 of its largest size over the trace: both are located to about 1e-10), or null.
+ */
+function throughPoints(trace: Trace): (e: SpecialPoint, branch: Branch) => number | null {
+  const range = Math.abs(trace.settings.to - trace.settings.from);
+  const n = trace.branches[0]?.points[0]?.state.length ?? 0;
+  const size = new Float64Array(n);
+  for (const b of trace.branches) {
+    for (const q of b.points) for (let i = 0; i < n; i++) size[i] = Math.max(size[i]!, Math.abs(q.state[i]!));
+  }
+  return (e, branch) => {
+    const pts = branch.points;
+    for (let k = 0; k < pts.length; k++) {
+      const q = pts[k]!;
+      if (Math.abs(q.parameter - e.parameter) > 1e-7 * Math.max(Math.abs(e.parameter), 1e-3 * range)) continue;
+      let same = true;
+      for (let i = 0; i < n && same; i++) same = Math.abs(q.state[i]! - e.state[i]!) <= 1e-6 * (size[i]! || 1);
+      if (same) return k;
+    }
+    return null;
+  };
 }
 
 function marginSide(e: SpecialPoint, nominal: number): MarginSide {

@@ -17,7 +17,7 @@ export function renderJson(report: Report): string {
 /** Every key of the report's objects, in one order that agrees with the declaration order of each type. */
 const KEY_ORDER = [
   'tool', 'version', 'id', 'index', 'name', 'type', 'kind', 'file', 'title', 'model', 'event', 'parameter', 'nominal',
-  'start', 'value', 'unit', 'about', 'states', 'parameters', 'range', 'state', 'branch', 'stable', 'from', 'to',
+  'start', 'value', 'min', 'max', 'unit', 'about', 'states', 'parameters', 'range', 'state', 'branch', 'stable', 'from', 'to',
   'unstableCount', 'settings', 'parameterIndex', 'ds', 'dsMin', 'dsMax', 'maxPoints', 'absTol', 'maxIter',
   'maxBranches', 'stopped', 'origin', 'points', 'maxRealPart', 'stability', 'branches', 'events', 'eigenvalues', 're',
   'im', 'meaning', 'residual', 'iterations', 'step', 'test', 'quantity', 'before', 'after', 'foldCoefficient', 'lyapunov', 'criticality', 'frequency', 'period',

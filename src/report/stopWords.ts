@@ -5,6 +5,8 @@ export function stopWords(reason: StopReason): string {
   switch (reason) {
     case 'left range':
       return 'it left the parameter range';
+    case 'state bound':
+      return 'a state reached a bound the model gives it (min or max)';
     case 'closed loop':
       return 'it closed on itself (a loop)';
     case 'point budget':

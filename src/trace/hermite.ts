@@ -1,11 +1,11 @@
-import type { RawPoint } from './rawPoint.js';
+import type { OnBranch } from './rawPoint.js';
 
 /**
  * The cubic Hermite curve through two branch points a and b with end slopes h·t (h the chord
  * length), at u ∈ [0, 1] (clamped): a local model of the branch between them, third-order
  * accurate in h (common practice for dense output of continuation).
  */
-export function hermite(a: RawPoint, b: RawPoint, h: number, u: number, out: Float64Array): void {
+export function hermite(a: OnBranch, b: OnBranch, h: number, u: number, out: Float64Array): void {
   const v = Math.min(1, Math.max(0, u));
   const v2 = v * v;
   const v3 = v2 * v;

@@ -16,7 +16,7 @@ import { locateRoot, type RootStatus } from '../detect/locateRoot.js';
 import { correctPoint } from './correctPoint.js';
 import type { ExtendedSystem } from './extendedSystem.js';
 import { hermite } from './hermite.js';
-import type { RawPoint } from './rawPoint.js';
+import type { OnBranch } from './rawPoint.js';
 import { tangentAt, type TangentOutcome } from './tangentAt.js';
 import { dot } from '../linalg/vector.js';
 import type { Workspace } from './workspace.js';
@@ -39,7 +39,7 @@ export interface Located {
 }
 
 export function locateOnBranch(
-  ext: ExtendedSystem, work: Workspace, a: RawPoint, b: RawPoint, test: BranchTest,
+  ext: ExtendedSystem, work: Workspace, a: OnBranch, b: OnBranch, test: BranchTest,
   gA: number, gB: number, opts: { absTol: number; maxIter: number; tol: number; rootMaxIter: number },
 ): Located {
   const { m } = ext;
@@ -90,7 +90,7 @@ export function locateOnBranch(
  * The prediction of the point at arclength σ along a's tangent: the cubic Hermite curve through a
  * and b, moved along t_a onto the hyperplane t_aᵀ(z − z_a) = σ. Writes into `out`.
  */
-export function predictOnBranch(a: RawPoint, b: RawPoint, sigma: number, out: Float64Array): Float64Array {
+export function predictOnBranch(a: OnBranch, b: OnBranch, sigma: number, out: Float64Array): Float64Array {
   const m = out.length;
   let sigmaB = 0;
   let chord = 0;

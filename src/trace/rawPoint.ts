@@ -29,6 +29,9 @@ export interface RawPoint {
   corner?: Float64Array;
 }
 
+/** A point on a branch with its tangent: all a local model of the branch between two points needs (hermite.ts). */
+export type OnBranch = Pick<RawPoint, 'z' | 't'>;
+
 /**
  * Packs a point whose tangent solve just ran (so `ext.jx` holds f_x at z, finite).
  * `z` and `t` are copied.

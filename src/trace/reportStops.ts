@@ -9,6 +9,7 @@ import type { WalkedBranch } from './traceBothWays.js';
 
 export const STOP_WHY: Record<StopReason, string> = {
   'left range': 'it left the parameter range',
+  'state bound': 'a state reached a bound the model gives it',
   'closed loop': 'it closed into a loop',
   'point budget': 'the point budget per branch is used up; raise it to follow the branch further, or give the ' +
     'states start values of their typical size in the model (steps are measured against them)',
@@ -25,7 +26,7 @@ export function reportStops(ext: ExtendedSystem, walked: WalkedBranch, id: numbe
   const ends = [points[0], points[points.length - 1]];
   stops.forEach((stop, side) => {
     const end = ends[side];
-    if (stop === null || stop === 'left range' || stop === 'closed loop' || stop === 'interrupted' || end === undefined) return;
+    if (stop === null || stop === 'left range' || stop === 'state bound' || stop === 'closed loop' || stop === 'interrupted' || end === undefined) return;
     warnings.push(message.traceBranchStopped(id, STOP_WHY[stop], name, end.z[ext.n]!));
   });
 }

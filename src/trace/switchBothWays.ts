@@ -4,12 +4,15 @@
  * second walk reversed, then z* itself, then the first walk. Walking away from z* on each side,
  * instead of through it, keeps the walker off the branch it came from: next to z* both branches
  * are close, and a step across z* could land on either (seen where the states and the parameter
- * range differ in size by ten or more).
+ * range differ in size by ten or more). A side whose first point lies beyond a bound the model
+ * gives a state (stateBound.ts) is not walked: the branch ends at z* there (a branch meeting the
+ * washout branch x = 0 at a transcritical point goes on only where x > 0).
  */
 import { TRACE } from '../defaults.js';
 import type { StopReason } from '../types.js';
 import type { ExtendedSystem } from './extendedSystem.js';
 import { rawPoint, reversedPoint, type RawPoint } from './rawPoint.js';
+import { beyondBounds, scaledBounds } from './stateBound.js';
 import { switchStart } from './switchStart.js';
 import { STOP_RANK, traceBothWays, type WalkedBranch } from './traceBothWays.js';
 import { normInf } from '../linalg/norm.js';
@@ -27,16 +30,33 @@ export interface Switched {
 export function switchBothWays(ctx: WalkContext, zStar: Float64Array, d: Float64Array): Switched | string {
   const { ext, work, settings } = ctx;
   const offset = TRACE.switchOffset * settings.ds;
-  const plus = switchStart(ext, work, zStar, d, offset, settings);
+  const bounds = scaledBounds(ext, Math.abs(settings.to - settings.from));
+  const side = (dir: Float64Array): RawPoint | string | 'beyond' => {
+    const start = switchStart(ext, work, zStar, dir, offset, settings);
+    return typeof start !== 'string' && bounds !== null && beyondBounds(bounds, start.z) ? 'beyond' : start;
+  };
+  let dir = d;
+  let plus = side(dir);
+  let minus = side(d.map((v) => -v));
+  if (plus === 'beyond' && typeof minus !== 'string') {
+    // Only the − side lies within the bounds: walk it as the + side.
+    dir = d.map((v) => -v);
+    [plus, minus] = [minus, plus];
+  }
+  if (plus === 'beyond') return 'the new branch leaves the bounds the model gives its states on both sides';
   if (typeof plus === 'string') return plus;
-  const minus = switchStart(ext, work, zStar, d.map((v) => -v), offset, settings);
+  const first = plus;
   return {
-    first: plus,
+    first,
     walk: (budget) => {
+      const mid = centre(ext, zStar, dir);
+      if (minus === 'beyond') {
+        const one = walkBranch(ctx, first, budget);
+        return join([], mid, one.points, 'state bound', one.stopped);
+      }
       // Without a start on the − side, walk through z* as before.
-      if (typeof minus === 'string') return traceBothWays(ctx, plus, budget, 0.5);
-      const one = walkBranch(ctx, plus, Math.max(2, Math.ceil(budget / 2)));
-      const mid = centre(ext, zStar, d);
+      if (typeof minus === 'string') return traceBothWays(ctx, first, budget, 0.5);
+      const one = walkBranch(ctx, first, Math.max(2, Math.ceil(budget / 2)));
       // A closed loop came back through z* already: nothing is left for the other side.
       if (one.stopped === 'interrupted' || one.stopped === 'closed loop') return join([], mid, one.points, null, one.stopped);
       const other = walkBranch(ctx, minus, Math.max(2, budget - one.points.length));

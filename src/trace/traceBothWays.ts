@@ -10,7 +10,8 @@ import { walkBranch, type WalkContext } from './walkBranch.js';
 
 /** Which stop to report for a branch walked both ways: the less ordinary one. */
 export const STOP_RANK: Record<StopReason, number> = {
-  'left range': 0, 'closed loop': 1, 'point budget': 2, corner: 3, 'step too small': 4, 'non-finite': 5, interrupted: 6,
+  'left range': 0, 'state bound': 1, 'closed loop': 2, 'point budget': 3, corner: 4, 'step too small': 5, 'non-finite': 6,
+  interrupted: 7,
 };
 
 export interface WalkedBranch {

@@ -119,6 +119,9 @@ export function traceBranches(
     // away from their branch point on both sides (switchBothWays.ts).
     const atEnd = job.kind === 'start' && job.parameter === from;
     const walked = switched !== undefined ? switched.walk(settings.maxPoints) : traceBothWays(ctx, start, settings.maxPoints, atEnd ? 1 : 0.5);
+    // An equilibrium on a state bound whose branch leaves the bounds on both sides at once (an angle
+    // at its bound of −π, a turn away from +π) is no branch within them.
+    if (walked.points.length === 1 && walked.stopped === 'state bound') continue;
     traced.push(walked.points);
     reportStops(ext, walked, id + 1, name, warnings); // messages count branches from 1
     branches.push({

@@ -15,7 +15,8 @@
  * can turn (the branch bends back), the walk restarts on the piece beyond the switch (pastCorner,
  * the corner kept on that point for detectEvents), or stops with 'corner' when that fails.
  *
- * Stops: 'left range' (last point landed exactly on the bound, landOnBound.ts), 'closed loop'
+ * Stops: 'left range' (last point landed exactly on the bound, landOnBound.ts), 'state bound' (a
+ * state reached a bound the model gives it, the last point landed on it: stateBound.ts), 'closed loop'
  * (back within 2·ds of the first point, tangent aligned, after having been at least four times
  * as far; the first point is appended again to close the curve), 'point budget',
  * 'corner', 'step too small', 'non-finite', 'interrupted'.
@@ -28,8 +29,10 @@ import { cornerScratch, cornerStep, jacobianJumps, pastCorner } from './corner.j
 import type { ExtendedSystem } from './extendedSystem.js';
 import { hiddenCrossings } from './hiddenCrossings.js';
 import { landOnBound } from './landOnBound.js';
-import { rawPoint, type RawPoint } from './rawPoint.js';
+import { rawPoint, type OnBranch, type RawPoint } from './rawPoint.js';
+import { firstCrossing, landOnStateBound, scaledBounds, type BoundCrossing } from './stateBound.js';
 import { tangentAt } from './tangentAt.js';
+import { normInf } from '../linalg/norm.js';
 import { distance, dot } from '../linalg/vector.js';
 import type { Workspace } from './workspace.js';
 
@@ -69,6 +72,7 @@ export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): W
   const scratch = cornerScratch(ext);
   const probe = new Float64Array(m);
   const turnOpts = { absTol: settings.absTol, maxIter: settings.maxIter, lengthScale: range };
+  const bounds = scaledBounds(ext, range);
   /**
    * The corrected point z lies past a switch of the model and its tangent leads further away from
    * it (at a corner where the branch turns back, the tangent oriented along the old one points back
@@ -109,6 +113,13 @@ export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): W
     sawNonFinite = false;
     const step = distance(z, cur.z);
     const lambda = z[n]!;
+    const crossing = bounds === null ? null : firstCrossing(bounds, cur.z, z);
+    // A state bound crossed before the parameter leaves its range ends the branch there.
+    const leaves = lambda < lo || lambda > hi;
+    if (bounds !== null && crossing !== null && (!leaves || crossing.fraction <= rangeFraction(cur.z[n]!, lambda, lo, hi))) {
+      landOnState(ctx, cur, { z, t: tNew }, crossing, bounds.slack, points);
+      return { points, stopped: 'state bound' };
+    }
     if (lambda < lo || lambda > hi) {
       const bound = lambda < lo ? lo : hi;
       if (cur.z[n] !== bound) landPoint(ctx, cur, z, bound, points);
@@ -134,6 +145,56 @@ export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): W
     }
     if (c.iterations <= TRACE.easyIterations) ds = Math.min(ds * TRACE.growFactor, settings.dsMax);
   }
+}
+
+/** How far along the step from λ0 (inside the range) to λ1 (outside) the range ends. */
+function rangeFraction(l0: number, l1: number, lo: number, hi: number): number {
+  return ((l1 < lo ? lo : hi) - l0) / (l1 - l0);
+}
+
+/**
+ * Appends the point where the step from `cur` to `outside` reaches a state bound, unless `cur` is on
+ * it already. At a branch point on the bound (a branch meeting the washout branch x = 0) the tangent
+ * is not unique: the point keeps the direction of the chord it was reached by.
+ */
+function landOnState(
+  ctx: WalkContext, cur: RawPoint, outside: OnBranch, crossing: BoundCrossing, slack: number, points: RawPoint[],
+): void {
+  const { ext, work, settings } = ctx;
+  if (crossing.fraction === 0) return;
+  const range = Math.abs(settings.to - settings.from);
+  const located = landOnStateBound(ext, work, cur, outside, crossing, {
+    absTol: settings.absTol, maxIter: settings.maxIter, rootMaxIter: TRACE.locateMaxIter,
+    tol: TRACE.locateRelTol * Math.max(Math.abs(cur.z[ext.n]!), 1e-3 * range),
+  });
+  const state = ext.system.info.states[crossing.index]?.name ?? `#${crossing.index}`;
+  if (located.status === 'not-corrected') {
+    ctx.warnings.push(message.traceStateBoundFailed(state, crossing.value / ext.w[crossing.index]!, ctx.name, cur.z[ext.n]!));
+    return;
+  }
+  let { tangent } = located;
+  // Next to a branch point the tangent solve is nearly singular and its direction unreliable; there,
+  // and where it turns away from the chord by more than a step may turn, the chord's direction is kept.
+  const chord = new Float64Array(ext.m);
+  const length = distance(located.z, cur.z);
+  for (let j = 0; j < ext.m; j++) chord[j] = (located.z[j]! - cur.z[j]!) / length;
+  if (!tangent.ok || tangent.singular || dot(located.t, chord) < Math.cos((TRACE.maxTurnDegrees * Math.PI) / 180)) {
+    located.t.set(chord);
+    tangent = { ...tangent, ok: true };
+  }
+  // Exactly on the bound where the locator left it within rounding of it (residual taken again there).
+  let residual = located.residual;
+  if (Math.abs(located.z[crossing.index]! - crossing.value) <= slack) {
+    located.z[crossing.index] = crossing.value;
+    const f = new Float64Array(ext.n);
+    residual = ext.residual(located.z, f) ? normInf(f) : residual;
+  }
+  // rawPoint reads f_x at the point from ext.jx: evaluate it there (the locator's last solve may have been beside it).
+  ext.jacobian(located.z, work.a);
+  const step = distance(located.z, cur.z);
+  points.push(rawPoint(ext, located.z, located.t, tangent, {
+    residual, iterations: located.iterations, step, s: cur.s + step,
+  }));
 }
 
 /**

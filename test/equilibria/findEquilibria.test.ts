@@ -1,6 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { findEquilibria } from '../../src/equilibria/findEquilibria.js';
 import { EQUILIBRIA } from '../../src/defaults.js';
+import { compileModel } from '../../src/compile/compileModel.js';
+import { message, UsageError } from '../../src/errors.js';
+import { loadModel } from '../../src/model/loadModel.js';
+import { prepare } from '../../src/setup.js';
 import { makeSystem, nominalParameters } from '../helpers/handSystem.js';
 
 function expectState(actual: Float64Array, expected: number[], tol: number): void {
@@ -229,6 +233,18 @@ describe('findEquilibria', () => {
     // Newton's last error is about absTol/|f'(1)| = 1e-10/49 (analytic); 1e-10 allows for it.
     expectState(equilibria[0]!.state, [1], 1e-10);
     expect(diagnostics.outsideBox).toBe(1);
+  });
+
+  it('keeps to the bounds the model gives a state: starts inside them, roots beyond them dropped', () => {
+    // Analytic: x(1 − x)(1 + x) = 0 at −1, 0, 1; with min 0 only 0 and 1 remain.
+    const model = loadModel('states: { x: { start: 0.5, min: 0 } }\nequations:\n  x: x*(1 - x)*(1 + x)\n', 'cubic.yaml');
+    const { equilibria, diagnostics } = findEquilibria(compileModel(model), new Float64Array(0));
+    expect(equilibria.map((e) => e.state[0]!).sort()).toEqual([0, 1]);
+    expect(diagnostics.box.lo[0]).toBe(0);
+    const free = findEquilibria(compileModel(loadModel('states: { x: 0.5 }\nequations:\n  x: x*(1 - x)*(1 + x)\n', 'cubic.yaml')), new Float64Array(0));
+    expect(free.equilibria.map((e) => e.state[0]!).sort()).toEqual([-1, 0, 1]);
+    // A start value outside the bounds is a usage error.
+    expect(() => prepare(model, { start: { x: -2 } })).toThrow(new UsageError(message.startOutsideBounds('x', -2, 0, undefined)));
   });
 
   it('gives identical results when run twice with the same options', () => {

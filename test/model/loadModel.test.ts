@@ -49,6 +49,11 @@ describe('loadModel reads a well-formed model', () => {
     expect([model.title, model.about]).toEqual(['Cooled exothermic tank', 'a test model']);
   });
 
+  it('keeps the bounds a state is given, and none where it is given none', () => {
+    const model = loadModel('states:\n  c: { start: 0.5, min: 0, unit: mol/L }\n  a: { start: 1, min: -3.5, max: 3.5 }\n  y: 2\nequations:\n  c: -c\n  a: -a\n  y: -y\n', 'b.yaml');
+    expect(model.states.map((q) => [q.name, q.min, q.max])).toEqual([['c', 0, undefined], ['a', -3.5, 3.5], ['y', undefined, undefined]]);
+  });
+
   it('orders equations like the states, whatever their order in the file', () => {
     expect(model.equations.map((e) => [e.state, e.text])).toEqual([['c', '-c + rate'], ['T', '-T + gain - 0.3*T']]);
     expect(model.equations[0]!.where).toEqual({ file: FILE, line: 14, column: 6 });
@@ -101,6 +106,13 @@ describe('loadModel reports each problem at its line and column', () => {
       at(5, 18, message.modelUnknownField('k', 'units', ['value', 'unit', 'about']))],
     ['a start key on a parameter', base(xy).replace('k: 0.5', 'k: { start: 1 }'),
       at(5, 8, message.modelUnknownField('k', 'start', ['value', 'unit', 'about']))],
+    ['a state whose min is not below its max', base(xy).replace('  x: 1\n', '  x: { start: 1, min: 2, max: 2 }\n'),
+      at(2, 31, message.modelBadBounds('x', 2, 2))],
+    ['a start outside the state\'s bounds', base(xy).replace('  x: 1\n', '  x: { start: -1, min: 0 }\n'),
+      at(2, 15, message.modelStartOutsideBounds('x', -1, 0, undefined))],
+    ['a text bound', base(xy).replace('  x: 1\n', '  x: { start: 1, max: big }\n'), at(2, 23, message.modelBadNumber('x', 'max', '"big"'))],
+    ['a bound on a parameter', base(xy).replace('k: 0.5', 'k: { value: 1, min: 0 }'),
+      at(5, 18, message.modelUnknownField('k', 'min', ['value', 'unit', 'about']))],
     ['a detailed entry without its number', base(xy).replace('k: 0.5', 'k: { unit: s }'),
       at(5, 6, message.modelMissingField('k', 'value'))],
     ['a parameter named like a state', base(xy).replace('k: 0.5', 'x: 0.5'), at(5, 3, message.modelDuplicateName('x', place(2, 3)))],
