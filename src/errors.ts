@@ -198,6 +198,10 @@ export const message = {
     `(residual ${residual.toExponential(2)})`,
   traceNoTangent: (param: string, value: number) =>
     `a start point at ${param} = ${value} was dropped: the branch direction there could not be computed`,
+  traceStartNotFinite: (param: string, value: number, states: string) =>
+    `a start point at ${param} = ${value} was dropped: the model's derivatives are not finite there (${states}), ` +
+    'so its branch cannot be followed (a negative number raised to a varied power, a logarithm at zero); bounds ' +
+    '(min, max) on the states keep the search away from such points',
   traceBoundBranchPoint: (param: string, value: number) =>
     `${param} = ${value}, an end of the range, is a branch point (the branch direction is not unique there): ` +
     'a branch that starts or ends there is followed only up to it; widen the range to follow the branches that cross there',

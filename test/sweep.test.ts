@@ -257,6 +257,17 @@ describe('sweep()', () => {
     }
   });
 
+  it('drops a start where the model is not defined around it, and says why', () => {
+    // x' = x^p − 1: at p = 2 the root x = −1 exists, but d/dp x^p = x^p ln x is not a number there
+    // (analytic); the branch x = 1 is followed over the whole range.
+    const model = loadModel('states: { x: 1 }\nparameters: { p: 1 }\nequations:\n  x: x^p - 1\n', 'power.yaml');
+    const { trace } = sweep(model, { vary: 'p', from: 1, to: 3, probes: 1 });
+    expect(trace.branches).toHaveLength(1);
+    expect(trace.warnings).toEqual([message.traceStartNotFinite('p', 2, 'x = -1')]);
+    const bounded = loadModel('states: { x: { start: 1, min: 0 } }\nparameters: { p: 1 }\nequations:\n  x: x^p - 1\n', 'power.yaml');
+    expect(sweep(bounded, { vary: 'p', from: 1, to: 3, probes: 1 }).trace.warnings).toEqual([]);
+  });
+
   it('words a fold by what is lost: the reactor\'s upper fold joins two unstable states', () => {
     // Uppal, Ray & Poore (1974) form with B = 14, beta = 2 (models/cooled-tank-reactor.yaml): along the
     // S-curve the lower sheet is stable up to the fold near Da = 0.1057; the middle sheet is a saddle and

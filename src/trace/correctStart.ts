@@ -29,6 +29,12 @@ export function correctStart(
     startPoint(ext, ext.unknownOf(r.x, at), toward, work, { residual: r.residual, iterations: r.iterations });
   const start = first(solved, lambda);
   if (start !== null) return { point: start };
+  // Derivatives that are not finite there (a power of a negative state with the varied exponent, a
+  // logarithm at 0): the equilibrium cannot be followed, and nudging would not help.
+  if (!ext.jacobian(ext.unknownOf(solved.x, lambda), work.a)) {
+    const states = ext.system.info.states.map((q, i) => `${q.name} = ${solved.x[i]}`).join(', ');
+    return message.traceStartNotFinite(name, lambda, states);
+  }
   // No unique direction: the start is a branch point. Start a little further into the range
   // instead (a branch point inside the range is then found as usual, from both sides).
   const nudged = lambda + TRACE.startNudge * (to - from);

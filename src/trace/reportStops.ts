@@ -11,8 +11,9 @@ export const STOP_WHY: Record<StopReason, string> = {
   'left range': 'it left the parameter range',
   'state bound': 'a state reached a bound the model gives it',
   'closed loop': 'it closed into a loop',
-  'point budget': 'the point budget per branch is used up; raise it to follow the branch further, or give the ' +
-    'states start values of their typical size in the model (steps are measured against them)',
+  'point budget': 'the point budget per branch is used up; raise it to follow the branch further, give the ' +
+    'states start values of their typical size in the model (steps are measured against them), or give them ' +
+    'bounds (min, max) where values beyond mean nothing (a branch running off to infinity or to negative amounts)',
   corner: 'it reached a corner of the model (an abs, min or max switches there) that it cannot turn; a steady ' +
     'state may end there, so look at the branches on either side of it',
   'step too small': 'the step length fell below its smallest value (the corrector kept failing; one cause is a state ' +
