@@ -72,6 +72,15 @@ export const TRACE = {
   /** A turn larger than maxTurnDegrees over a step of at most this fraction of |to − from| is taken
    *  as a corner of the model when [f_x f_λ] jumps there (src/trace/corner.ts). */
   cornerStep: 1e-6,
+  /**
+   * A branch running off to infinity (x = 1/λ near λ = 0): where a scaled state exceeds farFrom·|to − from|
+   * (beyond every typical size, stateWeights.ts), the largest step grows to farStepShare of the excess,
+   * so the walk moves in proportion to the size it has reached; beyond unboundedFactor·|to − from|
+   * (a state a hundred times its largest value at the equilibria found) the branch stops as unbounded.
+   */
+  farFrom: 2,
+  farStepShare: 0.25,
+  unboundedFactor: 100,
   /** Offset of a switched branch's first point from the branch point, as a fraction of ds. */
   switchOffset: 0.3,
   /** Eigenvalues with real part below this (relative to max(1, |largest eigenvalue|)) count as stable. */

@@ -203,7 +203,7 @@ export interface TracePoint {
 }
 
 export const STOP_REASONS = [
-  'left range', 'state bound', 'closed loop', 'point budget', 'corner', 'step too small', 'non-finite', 'interrupted',
+  'left range', 'state bound', 'closed loop', 'unbounded', 'point budget', 'corner', 'step too small', 'non-finite', 'interrupted',
 ] as const;
 export type StopReason = (typeof STOP_REASONS)[number];
 

@@ -7,6 +7,7 @@ import { message, NumericalError, UsageError } from '../src/errors.js';
 import { loadModel, readModelFile } from '../src/model/loadModel.js';
 import { cornerMeaning } from '../src/report/eventWords.js';
 import { sweep } from '../src/sweep.js';
+import { STOP_WHY } from '../src/trace/reportStops.js';
 import { bisect } from './trace/bisect.js';
 
 /**
@@ -266,6 +267,21 @@ describe('sweep()', () => {
     expect(trace.warnings).toEqual([message.traceStartNotFinite('p', 2, 'x = -1')]);
     const bounded = loadModel('states: { x: { start: 1, min: 0 } }\nparameters: { p: 1 }\nequations:\n  x: x^p - 1\n', 'power.yaml');
     expect(sweep(bounded, { vary: 'p', from: 1, to: 3, probes: 1 }).trace.warnings).toEqual([]);
+  });
+
+  it('stops a branch that runs off to infinity after a few steps that grow with it, and says so', () => {
+    // x' = 1/lam − x: the branch x = 1/lam runs off to ±infinity as lam → 0 from either side (analytic).
+    const model = loadModel('states: { x: 1 }\nparameters: { lam: 1 }\nequations:\n  x: 1/lam - x\n', 'pole.yaml');
+    const { report, trace } = sweep(model, { vary: 'lam', from: -1, to: 1 });
+    expect(report.branches.map((b) => b.stopped)).toEqual(['unbounded', 'unbounded']);
+    for (const b of report.branches) {
+      expect(b.points.length).toBeLessThan(300); // the default point budget is 2000
+      for (const q of b.points) expect(Math.abs(q.state.x! * q.parameter - 1)).toBeLessThan(1e-9);
+      const near = b.points.reduce((a, q) => (Math.abs(q.parameter) < Math.abs(a.parameter) ? q : a));
+      expect(Math.abs(near.parameter)).toBeLessThan(0.01);
+    }
+    expect(trace.warnings).toHaveLength(2);
+    expect(trace.warnings[0]).toBe(message.traceBranchStopped(1, STOP_WHY.unbounded, 'lam', report.branches[0]!.points.at(-1)!.parameter));
   });
 
   it('words a fold by what is lost: the reactor\'s upper fold joins two unstable states', () => {

@@ -9,6 +9,8 @@ export function stopWords(reason: StopReason): string {
       return 'a state reached a bound the model gives it (min or max)';
     case 'closed loop':
       return 'it closed on itself (a loop)';
+    case 'unbounded':
+      return 'a state grew without bound (a hundred times its typical size)';
     case 'point budget':
       return 'it used up its point budget';
     case 'corner':

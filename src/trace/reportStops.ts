@@ -11,6 +11,8 @@ export const STOP_WHY: Record<StopReason, string> = {
   'left range': 'it left the parameter range',
   'state bound': 'a state reached a bound the model gives it',
   'closed loop': 'it closed into a loop',
+  unbounded: 'a state grew to a hundred times its largest value at the equilibria found and kept growing: the branch ' +
+    'runs off to infinity near there (if it comes back, give that state a start value of its size in the model)',
   'point budget': 'the point budget per branch is used up; raise it to follow the branch further, give the ' +
     'states start values of their typical size in the model (steps are measured against them), or give them ' +
     'bounds (min, max) where values beyond mean nothing (a branch running off to infinity or to negative amounts)',

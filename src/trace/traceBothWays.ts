@@ -10,8 +10,8 @@ import { walkBranch, type WalkContext } from './walkBranch.js';
 
 /** Which stop to report for a branch walked both ways: the less ordinary one. */
 export const STOP_RANK: Record<StopReason, number> = {
-  'left range': 0, 'state bound': 1, 'closed loop': 2, 'point budget': 3, corner: 4, 'step too small': 5, 'non-finite': 6,
-  interrupted: 7,
+  'left range': 0, 'state bound': 1, 'closed loop': 2, unbounded: 3, 'point budget': 4, corner: 5, 'step too small': 6,
+  'non-finite': 7, interrupted: 8,
 };
 
 export interface WalkedBranch {

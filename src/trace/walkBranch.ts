@@ -8,7 +8,10 @@
  * spacing), or when the step hides eigenvalue crossings (hiddenCrossings.ts: two crossings, a
  * crossing beside a pair turning real, which the test functions cannot tell, or a crossing pair
  * that cannot be told from another one after the step; halving stops at dsMin); grow it by
- * growFactor after a correction of at most easyIterations Newton steps; clamp to [dsMin, dsMax].
+ * growFactor after a correction of at most easyIterations Newton steps; clamp to [dsMin, dsMax],
+ * where dsMax grows with the size a state has reached far beyond its typical size (TRACE.farFrom:
+ * a branch running off to infinity is followed in steps proportional to that size, and stops as
+ * 'unbounded' beyond TRACE.unboundedFactor).
  *
  * Corners: a turn larger than maxTurnDegrees is accepted over a step of at most TRACE.cornerStep of
  * the range when [f_x f_λ] jumps across it (an abs, min or max switching, corner.ts); where no step
@@ -19,7 +22,7 @@
  * state reached a bound the model gives it, the last point landed on it: stateBound.ts), 'closed loop'
  * (back within 2·ds of the first point, tangent aligned, after having been at least four times
  * as far; the first point is appended again to close the curve), 'point budget',
- * 'corner', 'step too small', 'non-finite', 'interrupted'.
+ * 'unbounded', 'corner', 'step too small', 'non-finite', 'interrupted'.
  */
 import { TRACE } from '../defaults.js';
 import { message } from '../errors.js';
@@ -143,8 +146,18 @@ export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): W
       points.push({ ...start, step: fromFirst, s: cur.s + fromFirst });
       return { points, stopped: 'closed loop' };
     }
-    if (c.iterations <= TRACE.easyIterations) ds = Math.min(ds * TRACE.growFactor, settings.dsMax);
+    const size = scaledSize(z, n);
+    if (size > TRACE.unboundedFactor * range) return { points, stopped: 'unbounded' };
+    const cap = Math.max(settings.dsMax, TRACE.farStepShare * (size - TRACE.farFrom * range));
+    if (c.iterations <= TRACE.easyIterations) ds = Math.min(ds * TRACE.growFactor, cap);
   }
+}
+
+/** The largest scaled state, max |z_i| over i < n. */
+function scaledSize(z: Float64Array, n: number): number {
+  let size = 0;
+  for (let i = 0; i < n; i++) size = Math.max(size, Math.abs(z[i]!));
+  return size;
 }
 
 /** How far along the step from λ0 (inside the range) to λ1 (outside) the range ends. */
