@@ -6,7 +6,8 @@
  *         ─window and held states→ buildPortrait → PortraitData      (src/portrait/)
  *
  * Default plane: the first two states. Default window: the box around the equilibria and the
- * start guess, widened by half its size on each side (at least 1 wide; common practice). For
+ * start guess, widened by half its size on each side (at least 1 wide; common practice), within
+ * the states' bounds. For
  * models with more than two states, the other states are held at their values at the first
  * stable equilibrium (or the first equilibrium, or the start guess) and the page says so.
  */
@@ -30,13 +31,15 @@ export interface PortraitResult {
   params: Float64Array;
 }
 
-function defaultWindow(points: readonly Float64Array[], ix: number, iy: number): PortraitWindow {
+function defaultWindow(points: readonly Float64Array[], ix: number, iy: number, model: Model): PortraitWindow {
   const side = (i: number): [number, number] => {
     const values = points.map((s) => s[i]!);
     const lo = Math.min(...values);
     const hi = Math.max(...values);
     const pad = Math.max(0.5 * (hi - lo), 0.5, 0.25 * Math.max(Math.abs(lo), Math.abs(hi)));
-    return [lo - pad, hi + pad];
+    // Not beyond the bounds the model gives the state (no negative concentrations on the plane).
+    const { min = -Infinity, max = Infinity } = model.states[i]!;
+    return [Math.max(lo - pad, min), Math.min(hi + pad, max)];
   };
   return { x: side(ix), y: side(iy) };
 }
@@ -51,7 +54,7 @@ export function portraitAt(model: Model, request: PortraitRequest): PortraitResu
   const ix = request.x !== undefined ? stateIndex(model, request.x) : 0;
   const iy = request.y !== undefined ? stateIndex(model, request.y) : 1;
   const { equilibria } = findEquilibria(system, params, { guess, keepOutsideBox: true });
-  const window = request.window ?? defaultWindow([guess, ...equilibria.map((e) => e.state)], ix, iy);
+  const window = request.window ?? defaultWindow([guess, ...equilibria.map((e) => e.state)], ix, iy, model);
   const held = (equilibria.find((e) => e.stable) ?? equilibria[0])?.state ?? guess;
   const data = buildPortrait(system, params, { ix, iy, window, held: held.slice(), equilibria });
   return { data, equilibria, params };

@@ -167,8 +167,7 @@ function rangeFraction(l0: number, l1: number, lo: number, hi: number): number {
 
 /**
  * Appends the point where the step from `cur` to `outside` reaches a state bound, unless `cur` is on
- * it already. At a branch point on the bound (a branch meeting the washout branch x = 0) the tangent
- * is not unique: the point keeps the direction of the chord it was reached by.
+ * it already.
  */
 function landOnState(
   ctx: WalkContext, cur: RawPoint, outside: OnBranch, crossing: BoundCrossing, slack: number, points: RawPoint[],
@@ -187,13 +186,15 @@ function landOnState(
   }
   let { tangent } = located;
   // Next to a branch point the tangent solve is nearly singular and its direction unreliable; there,
-  // and where it turns away from the chord by more than a step may turn, the chord's direction is kept.
+  // and where it turns away from the chord by more than a step may turn, the chord's direction is kept,
+  // with no branch-point test value (its sign would be noise: a branch point there is found on the
+  // branch the bound belongs to, and counts for this one's margin: margin.ts).
   const chord = new Float64Array(ext.m);
   const length = distance(located.z, cur.z);
   for (let j = 0; j < ext.m; j++) chord[j] = (located.z[j]! - cur.z[j]!) / length;
   if (!tangent.ok || tangent.singular || dot(located.t, chord) < Math.cos((TRACE.maxTurnDegrees * Math.PI) / 180)) {
     located.t.set(chord);
-    tangent = { ...tangent, ok: true };
+    tangent = { ok: true, singular: true, detSign: 0, detLog: -Infinity };
   }
   // Exactly on the bound where the locator left it within rounding of it (residual taken again there).
   let residual = located.residual;
