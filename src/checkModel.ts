@@ -33,8 +33,10 @@ export function checkText(c: ModelCheck): string {
   const { model } = c;
   const unit = (u?: string) => u ?? '';
   const states = textTable(
-    ['state', 'start', 'unit', 'f at start', 'about'],
-    model.states.map((s, i) => [s.name, formatNumber(c.guess[i]!, 6), unit(s.unit), formatNumber(c.residual[i]!, 4), s.about ?? '']),
+    ['state', 'start', 'bounds', 'unit', 'f at start', 'about'],
+    model.states.map((s, i) => [
+      s.name, formatNumber(c.guess[i]!, 6), boundsText(s.min, s.max), unit(s.unit), formatNumber(c.residual[i]!, 4), s.about ?? '',
+    ]),
   );
   const parameters = textTable(
     ['parameter', 'value', 'unit', 'about'],
@@ -58,6 +60,13 @@ export function checkText(c: ModelCheck): string {
       : `warning: ${weightedSum(names, q.weights)} changes at the same rate ${formatNumber(q.rate, 6)} at every state: the model has no equilibrium`),
     '',
   ].join('\n');
+}
+
+/** `>= 0`, `<= 1`, `-3.142 to 3.142`, or nothing. */
+function boundsText(min?: number, max?: number): string {
+  if (min !== undefined && max !== undefined) return `${formatNumber(min, 4)} to ${formatNumber(max, 4)}`;
+  if (min !== undefined) return `>= ${formatNumber(min, 4)}`;
+  return max !== undefined ? `<= ${formatNumber(max, 4)}` : '';
 }
 
 function count(k: number, noun: string): string {

@@ -40,6 +40,13 @@ describe('branchtrace check', () => {
     const mismatch = Number(/largest relative mismatch (\S+)/.exec(r.stdout)?.[1]);
     expect(mismatch).toBeLessThan(1e-6); // common practice bound, also the model-file issue's
   });
+
+  it('shows the bounds a state is given', () => {
+    const r = runCli(['check', join(process.cwd(), 'models/predator-prey-enrichment.yaml')]);
+    expect(r.stdout).toMatch(/^algae\s+1\s+>= 0\s+mg\/L/m);
+    const file = writeModel('states:\n  a: { start: 0.5, min: -1, max: 1 }\nequations:\n  a: -a\n');
+    expect(runCli(['check', file]).stdout).toMatch(/^a\s+0\.5\s+−1 to 1\s/m);
+  });
 });
 
 describe('branchtrace equilibria', () => {
