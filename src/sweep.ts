@@ -64,17 +64,22 @@ export function probeCount(n: number): number {
 
 /**
  * Where equilibria are searched for, in this order: the start of the range, the nominal value (if
- * inside), the end, then `count` evenly spaced values inside (those within a thousandth of the
- * range of the nominal value are left out: that search is done).
+ * inside), the end, then `count` probes inside, one in each of `count` equal parts of the range at
+ * the golden-section point of the part (0.382 of it), so that none falls on a round value such as 0
+ * or the middle, where special points often sit (a start on a branch point has no unique direction).
+ * Probes within a thousandth of the range of the nominal value are left out: that search is done.
  */
 export function searchValues(from: number, to: number, nominal: number, count: number): number[] {
   const lo = Math.min(from, to);
   const hi = Math.max(from, to);
   const inside = nominal > lo && nominal < hi;
-  const probes = Array.from({ length: count }, (_, i) => from + ((to - from) * (i + 1)) / (count + 1))
+  const probes = Array.from({ length: count }, (_, i) => from + ((to - from) * (i + GOLDEN_SECTION)) / count)
     .filter((v) => !inside || Math.abs(v - nominal) > 1e-3 * (hi - lo));
   return [from, ...(inside ? [nominal] : []), to, ...probes];
 }
+
+/** (3 − √5)/2: the golden-section fraction, far from every simple ratio (common practice). */
+const GOLDEN_SECTION = (3 - Math.sqrt(5)) / 2;
 
 function settingsFor(k: number, opts: SweepOptions): TraceSettings {
   const overrides: Partial<TraceSettings> = {};

@@ -6,7 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { message, NumericalError, UsageError } from '../src/errors.js';
 import { loadModel, readModelFile } from '../src/model/loadModel.js';
 import { cornerMeaning } from '../src/report/eventWords.js';
-import { sweep } from '../src/sweep.js';
+import { searchValues, sweep } from '../src/sweep.js';
 import { STOP_WHY } from '../src/trace/reportStops.js';
 import { bisect } from './trace/bisect.js';
 
@@ -261,12 +261,13 @@ describe('sweep()', () => {
   it('drops a start where the model is not defined around it, and says why', () => {
     // x' = x^p − 1: at p = 2 the root x = −1 exists, but d/dp x^p = x^p ln x is not a number there
     // (analytic); the branch x = 1 is followed over the whole range.
-    const model = loadModel('states: { x: 1 }\nparameters: { p: 1 }\nequations:\n  x: x^p - 1\n', 'power.yaml');
-    const { trace } = sweep(model, { vary: 'p', from: 1, to: 3, probes: 1 });
+    // The nominal value p = 2 is one of the values searched.
+    const model = loadModel('states: { x: 1 }\nparameters: { p: 2 }\nequations:\n  x: x^p - 1\n', 'power.yaml');
+    const { trace } = sweep(model, { vary: 'p', from: 1, to: 3, probes: 0 });
     expect(trace.branches).toHaveLength(1);
     expect(trace.warnings).toEqual([message.traceStartNotFinite('p', 2, 'x = -1')]);
-    const bounded = loadModel('states: { x: { start: 1, min: 0 } }\nparameters: { p: 1 }\nequations:\n  x: x^p - 1\n', 'power.yaml');
-    expect(sweep(bounded, { vary: 'p', from: 1, to: 3, probes: 1 }).trace.warnings).toEqual([]);
+    const bounded = loadModel('states: { x: { start: 1, min: 0 } }\nparameters: { p: 2 }\nequations:\n  x: x^p - 1\n', 'power.yaml');
+    expect(sweep(bounded, { vary: 'p', from: 1, to: 3, probes: 0 }).trace.warnings).toEqual([]);
   });
 
   it('stops a branch that runs off to infinity after a few steps that grow with it, and says so', () => {
@@ -282,6 +283,21 @@ describe('sweep()', () => {
     }
     expect(trace.warnings).toHaveLength(2);
     expect(trace.warnings[0]).toBe(message.traceBranchStopped(1, STOP_WHY.unbounded, 'lam', report.branches[0]!.points.at(-1)!.parameter));
+  });
+
+  it('puts the probes off the round values of the range, where special points often sit', () => {
+    // A probe exactly on a branch point (x = 0 at lam = 0 in a range symmetric about 0) starts branches
+    // with no unique direction; equal parts with the probe at the golden-section point avoid 0 and the middle.
+    for (const [from, to] of [[-1, 1], [0, 1], [1, 0], [-3, 5]] as const) {
+      const probes = searchValues(from, to, 99, 7).slice(2);
+      expect(probes).toHaveLength(7);
+      for (const v of probes) {
+        const u = (v - from) / (to - from);
+        for (const round of [0, 1 / 8, 1 / 4, 1 / 3, 3 / 8, 1 / 2, 5 / 8, 2 / 3, 3 / 4, 7 / 8, 1]) expect(Math.abs(u - round)).toBeGreaterThan(1e-4);
+        if (from < 0 && to > 0) expect(Math.abs(v)).toBeGreaterThan(0.01 * (to - from));
+      }
+    }
+    expect(searchValues(0, 1, 0.5, 3)).toEqual([0, 0.5, 1, ...[0, 1, 2].map((i) => (i + (3 - Math.sqrt(5)) / 2) / 3)]);
   });
 
   it('words a fold by what is lost: the reactor\'s upper fold joins two unstable states', () => {

@@ -34,6 +34,7 @@ import { hiddenCrossings } from './hiddenCrossings.js';
 import { landOnBound } from './landOnBound.js';
 import { rawPoint, type OnBranch, type RawPoint } from './rawPoint.js';
 import { firstCrossing, landOnStateBound, scaledBounds, type BoundCrossing } from './stateBound.js';
+import { hermiteTangent } from './hermite.js';
 import { tangentAt } from './tangentAt.js';
 import { normInf } from '../linalg/norm.js';
 import { distance, dot } from '../linalg/vector.js';
@@ -184,18 +185,22 @@ function landOnState(
     ctx.warnings.push(message.traceStateBoundFailed(state, crossing.value / ext.w[crossing.index]!, ctx.name, cur.z[ext.n]!));
     return;
   }
-  let { tangent } = located;
-  // Next to a branch point the tangent solve is nearly singular and its direction unreliable; there,
-  // and where it turns away from the chord by more than a step may turn, the chord's direction is kept,
-  // with no branch-point test value (its sign would be noise: a branch point there is found on the
-  // branch the bound belongs to, and counts for this one's margin: margin.ts).
-  const chord = new Float64Array(ext.m);
-  const length = distance(located.z, cur.z);
-  for (let j = 0; j < ext.m; j++) chord[j] = (located.z[j]! - cur.z[j]!) / length;
-  if (!tangent.ok || tangent.singular || dot(located.t, chord) < Math.cos((TRACE.maxTurnDegrees * Math.PI) / 180)) {
-    located.t.set(chord);
-    tangent = { ok: true, singular: true, detSign: 0, detLog: -Infinity };
+  // The tangent there is the derivative of the cubic through the step's two ends at the located
+  // point: a tangent solve next to a branch point on the bound (where the bound is itself a branch)
+  // is nearly singular and points anywhere. No branch-point test value either, for the same reason:
+  // a branch point there is found on the branch the bound belongs to and counts for this one's
+  // margin too (margin.ts).
+  // Where the branch turns back exactly on the bound (half a pitchfork on x = 0: λ = x² has its least
+  // λ there) the cubic's tangent may already point back, which would read as a fold: the branch
+  // within the bounds just ends there, so the chord's direction is kept then.
+  const n = ext.n;
+  const sigmaB = dot(cur.t, outside.z.map((v, j) => v - cur.z[j]!));
+  hermiteTangent(cur, outside, distance(cur.z, outside.z), sigmaB === 0 ? 0 : located.s / sigmaB, located.t);
+  if (located.t[n]! * (located.z[n]! - cur.z[n]!) < 0) {
+    const length = distance(located.z, cur.z);
+    for (let j = 0; j < ext.m; j++) located.t[j] = (located.z[j]! - cur.z[j]!) / length;
   }
+  const tangent = { ok: true, singular: true, detSign: 0, detLog: -Infinity };
   // Exactly on the bound where the locator left it within rounding of it (residual taken again there).
   let residual = located.residual;
   if (Math.abs(located.z[crossing.index]! - crossing.value) <= slack) {
