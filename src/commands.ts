@@ -229,7 +229,7 @@ function program(sweepWorker: () => SweepWorker): Command {
     .option('--step <H>', 'first step along the branch (parameter units; default 1% of the range)')
     .option('--max-step <H>', 'largest step along the branch (default 2% of the range)')
     .option('--max-points <N>', 'point budget per branch (default 2000)')
-    .option('--probes <N>', 'search for equilibria also at N evenly spaced values inside the range, to find branches that reach neither end (default 7; 3 for models of more than 20 states; 0: none)')
+    .option('--probes <N>', 'search for equilibria also at N values spread over the range, to find branches that reach neither end (default 7; 3 for models of more than 20 states; 0: none)')
     .option('--warn-margin <F>', 'warn when the nearest special point is closer than this fraction of the nominal value (default 0.1)')
     .option('--fail-margin <F>', 'exit with status 3 when it is closer than this fraction (default 0: never)')
     .option('--plot <STATES>', 'states to draw, comma-separated, or "norm" (default: every state; the norm for more than eight states)')

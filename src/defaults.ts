@@ -29,7 +29,7 @@ export const EQUILIBRIA = {
   /** Start points for the further searches of a sweep (at the nominal value, the end of the range and the probes). */
   extraStarts: 16,
   /**
-   * Parameter values inside a sweep's range where equilibria are searched for too (evenly spaced), so
+   * Parameter values inside a sweep's range where equilibria are searched for too (one per equal part: searchValues), so
    * that a branch reaching neither end of the range (an isola) is found: this many for models of up
    * to `probeStates` states, `probesLarge` above (a search there costs about n³ per Newton step).
    * Common practice: an isola narrower than the spacing can still be missed (--probes).

@@ -35,7 +35,7 @@ export interface SweepOptions {
   maxStep?: number;
   /** Point budget per branch. */
   maxPoints?: number;
-  /** Evenly spaced values inside the range where equilibria are searched for too (default: probeCount). */
+  /** How many values inside the range equilibria are searched for at too (searchValues; default: probeCount). */
   probes?: number;
   warnMargin?: number;
   failMargin?: number;
