@@ -44,11 +44,12 @@ export function prepare(model: Model, overrides: Overrides = {}): Prepared {
   for (const [name, value] of Object.entries(overrides.set ?? {})) params[parameterIndex(model, name)] = value;
   const guess = Float64Array.from(model.states.map((s) => s.start));
   for (const [name, value] of Object.entries(overrides.start ?? {})) {
-    const state = model.states[stateIndex(model, name)]!;
-    if ((state.min !== undefined && value < state.min) || (state.max !== undefined && value > state.max)) {
-      throw new UsageError(message.startOutsideBounds(name, value, state.min, state.max));
+    const i = stateIndex(model, name);
+    const { min, max } = model.states[i]!;
+    if ((min !== undefined && value < min) || (max !== undefined && value > max)) {
+      throw new UsageError(message.startOutsideBounds(name, value, min, max));
     }
-    guess[stateIndex(model, name)] = value;
+    guess[i] = value;
   }
   const system = compileModel(model);
   assertFiniteAt(system, guess, params);

@@ -27,9 +27,9 @@ interface Crossing {
  * - Sides: walking along that branch from the operating point, the first special point in each
  *   direction. A special point found on another branch counts where this branch passes through it
  *   (a branch point, seen from the branch switched to, or a branch that ends on a state bound
- *   exactly where it meets the washout branch there). Between special points the parameter moves monotonically (folds are special points),
- *   so the two lie on opposite sides of the nominal value; each is filed as below or above by its
- *   parameter (should both fall on one side, the nearer is kept).
+ *   exactly where it meets the washout branch there). Between special points the parameter moves
+ *   monotonically (folds are special points), so the two lie on opposite sides of the nominal value;
+ *   each is filed as below or above by its parameter (should both fall on one side, the nearer is kept).
  * - distance = |λ_special − nominal|, relative = distance/|nominal| (distance itself when nominal = 0).
  * - status: "fail" if the smaller relative distance < failMargin, "warn" if < warnMargin, else "ok";
  *   "nominal outside range" when no traced branch passes the nominal value; "no special point" when
