@@ -4,6 +4,7 @@
  */
 import { findEquilibria, type EquilibriumSearch } from './equilibria/findEquilibria.js';
 import { assertIsolatedEquilibria, prepare, searchBox, type Overrides, type Prepared } from './setup.js';
+import { equilibriaInModelTime, inLongerTime, timeFactor } from './timeUnit.js';
 import type { Model } from './types.js';
 
 export interface EquilibriaAtOptions extends Overrides {
@@ -17,5 +18,8 @@ export function equilibriaAt(model: Model, opts: EquilibriaAtOptions = {}): Prep
   const box = searchBox(model, prepared.guess, opts.box ?? []);
   // Without --box the box is only where start points go; every equilibrium found is reported.
   const keepOutsideBox = (opts.box ?? []).length === 0;
-  return { ...prepared, search: findEquilibria(prepared.system, prepared.params, { box, guess: prepared.guess, keepOutsideBox }) };
+  // A slow model is searched in a longer time unit, its eigenvalues given back in its own (timeUnit.ts).
+  const r = timeFactor(prepared.system, prepared.params, prepared.guess);
+  const search = findEquilibria(inLongerTime(prepared.system, r), prepared.params, { box, guess: prepared.guess, keepOutsideBox });
+  return { ...prepared, search: { ...search, equilibria: equilibriaInModelTime(search.equilibria, r) } };
 }

@@ -2,6 +2,7 @@
  * The parameter sweep, one straight pipeline:
  *
  *   Model ─prepare→ CompiledSystem, parameters, guess      (src/setup.ts, src/compile/)
+ *         (a slow model in a longer time unit: src/timeUnit.ts)
  *         ─findEquilibria at from, nominal, to, probes→ starts (src/equilibria/)
  *         ─traceBranches→ Trace: branches, special points  (src/trace/, src/detect/)
  *         ─buildReport→ Report (margin included)           (src/report/)
@@ -19,6 +20,7 @@ import { newton } from './solve/newton.js';
 import { traceBranches, type StartEquilibrium } from './trace/traceBranches.js';
 import { traceSettings } from './trace/traceSettings.js';
 import type { Model, NewtonResult, Report, Trace, TraceHooks, TraceSettings } from './types.js';
+import { inLongerTime, timeFactor, traceInModelTime } from './timeUnit.js';
 import { VERSION } from './version.js';
 
 export interface SweepOptions {
@@ -96,7 +98,10 @@ export function sweep(model: Model, opts: SweepOptions, hooks: TraceHooks = {}):
   if (!(opts.from !== opts.to)) throw new UsageError(message.emptyRange(opts.from, opts.to));
   const prepared = prepare(model, opts);
   assertIsolatedEquilibria(prepared);
-  const { system, params, guess } = prepared;
+  const { params, guess } = prepared;
+  // A slow model is computed in a longer time unit, its rates given back in its own (timeUnit.ts).
+  const r = timeFactor(prepared.system, params, guess);
+  const system = inLongerTime(prepared.system, r);
   const nominal = params[k]!;
 
   // 1. Every equilibrium the search finds at the start of the range (the guess is tried first),
@@ -120,7 +125,7 @@ export function sweep(model: Model, opts: SweepOptions, hooks: TraceHooks = {}):
   const starts = [...fromStarts, ...further];
 
   // 2. Follow every branch through them.
-  const trace = traceBranches(system, params, settingsFor(k, opts), starts, hooks);
+  const trace = traceInModelTime(traceBranches(system, params, settingsFor(k, opts), starts, hooks), r);
 
   // 3. The operating state: where Newton from the guess lands at the nominal value.
   const operating = newtonAt(system, params, guess);
@@ -133,5 +138,5 @@ export function sweep(model: Model, opts: SweepOptions, hooks: TraceHooks = {}):
     searchedAt: [first!, ...others],
     ...(operating.status === 'converged' && { operatingState: operating.x }),
   });
-  return { system, starts, trace, report };
+  return { system: prepared.system, starts, trace, report };
 }
