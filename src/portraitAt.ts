@@ -15,6 +15,7 @@ import { buildPortrait, type PortraitData } from './portrait/buildPortrait.js';
 import type { PortraitWindow } from './portrait/plane.js';
 import { findEquilibria } from './equilibria/findEquilibria.js';
 import { parameterIndex, prepare, stateIndex, type Overrides } from './setup.js';
+import { equilibriaInModelTime, inLongerTime, timeFactor } from './timeUnit.js';
 import type { Equilibrium, Model } from './types.js';
 
 export interface PortraitRequest extends Overrides {
@@ -53,7 +54,9 @@ export function portraitAt(model: Model, request: PortraitRequest): PortraitResu
   const { system, params, guess } = prepare(model, { set, ...(request.start && { start: request.start }) });
   const ix = request.x !== undefined ? stateIndex(model, request.x) : 0;
   const iy = request.y !== undefined ? stateIndex(model, request.y) : 1;
-  const { equilibria } = findEquilibria(system, params, { guess, keepOutsideBox: true });
+  // A slow model is searched in a longer time unit, its eigenvalues given back in its own (timeUnit.ts).
+  const r = timeFactor(system, params, guess);
+  const equilibria = equilibriaInModelTime(findEquilibria(inLongerTime(system, r), params, { guess, keepOutsideBox: true }).equilibria, r);
   const window = request.window ?? defaultWindow([guess, ...equilibria.map((e) => e.state)], ix, iy, model);
   const held = (equilibria.find((e) => e.stable) ?? equilibria[0])?.state ?? guess;
   const data = buildPortrait(system, params, { ix, iy, window, held: held.slice(), equilibria });

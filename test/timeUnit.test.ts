@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { equilibriaAt } from '../src/equilibriaAt.js';
 import { loadModel } from '../src/model/loadModel.js';
+import { portraitAt } from '../src/portraitAt.js';
 import { prepare } from '../src/setup.js';
 import { sweep } from '../src/sweep.js';
 import { SLOW_RATE, timeFactor } from '../src/timeUnit.js';
@@ -43,6 +44,12 @@ describe('the unit of time', () => {
     expect(Array.from(e.state)).toEqual([1, 1.5]);
     expect(e.eigenvalues[0]!.re / 1e-12).toBeCloseTo(-0.25, 10);
     expect(Math.abs(e.eigenvalues[0]!.im) / 1e-12).toBeCloseTo(Math.sqrt(15) / 4, 10);
+  });
+
+  it('draws the phase portrait of a slow model around its one equilibrium', () => {
+    const { equilibria } = portraitAt(brusselator(1e-12), {});
+    expect(equilibria.map((e) => Array.from(e.state))).toEqual([[1, 1.5]]);
+    expect(equilibria[0]!.eigenvalues[0]!.re / 1e-12).toBeCloseTo(-0.25, 10);
   });
 
   it('leaves a model alone whose rates are not slow', () => {
