@@ -26,7 +26,7 @@ export const EQUILIBRIA = {
   boxTolerance: 0.01,
   /** Cap on Newton iterations over the whole search (deflated solves and polishing together). */
   iterationBudget: 4000,
-  /** Start points for the further searches of a sweep (at the nominal value, the end of the range and the probes). */
+  /** Start points for the further searches of a sweep at the nominal value and the end of the range. */
   extraStarts: 16,
   /**
    * Parameter values inside a sweep's range where equilibria are searched for too (one per equal part: searchValues), so
@@ -37,6 +37,8 @@ export const EQUILIBRIA = {
   probes: 7,
   probeStates: 20,
   probesLarge: 3,
+  /** Start points of a search at a probe: fewer than at the ends, as the probes are many. */
+  probeStarts: 8,
   /** Deflated solves from one start point (each found root is deflated and the start reused). */
   solvesPerStart: 4,
 } as const;

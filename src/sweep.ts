@@ -65,19 +65,19 @@ export function probeCount(n: number): number {
 }
 
 /**
- * Where equilibria are searched for, in this order: the start of the range, the nominal value (if
- * inside), the end, then `count` probes inside, one in each of `count` equal parts of the range at
+ * Where equilibria are searched for: the start of the range, the nominal value (if inside) and the
+ * end (`main`, in this order), then `count` probes inside, one in each of `count` equal parts of the range at
  * the golden-section point of the part (0.382 of it), so that none falls on a round value such as 0
  * or the middle, where special points often sit (a start on a branch point has no unique direction).
  * Probes within a thousandth of the range of the nominal value are left out: that search is done.
  */
-export function searchValues(from: number, to: number, nominal: number, count: number): number[] {
+export function searchValues(from: number, to: number, nominal: number, count: number): { main: number[]; probes: number[] } {
   const lo = Math.min(from, to);
   const hi = Math.max(from, to);
   const inside = nominal > lo && nominal < hi;
   const probes = Array.from({ length: count }, (_, i) => from + ((to - from) * (i + GOLDEN_SECTION)) / count)
     .filter((v) => !inside || Math.abs(v - nominal) > 1e-3 * (hi - lo));
-  return [from, ...(inside ? [nominal] : []), to, ...probes];
+  return { main: [from, ...(inside ? [nominal] : []), to], probes };
 }
 
 /** (3 − √5)/2: the golden-section fraction, far from every simple ratio (common practice). */
@@ -113,15 +113,18 @@ export function sweep(model: Model, opts: SweepOptions, hooks: TraceHooks = {}):
     q[k] = lambda;
     return q;
   };
-  const [first, ...others] = searchValues(opts.from, opts.to, nominal, opts.probes ?? probeCount(system.n));
+  const { main: [first, ...ends], probes } = searchValues(opts.from, opts.to, nominal, opts.probes ?? probeCount(system.n));
   const fromStarts = findEquilibria(system, at(first!), { guess, keepOutsideBox: true }).equilibria.map((e) => e.state);
   if (fromStarts.length === 0) {
     const tried = newtonAt(system, at(opts.from), guess);
     throw new NumericalError(message.noEquilibriumAtStart(opts.vary, opts.from, tried.residual, tried.iterations));
   }
-  const further = others.flatMap((lambda) =>
-    findEquilibria(system, at(lambda), { guess, starts: EQUILIBRIA.extraStarts, keepOutsideBox: true }).equilibria
-      .map((e) => ({ state: e.state, parameter: lambda })));
+  const searchAt = (lambda: number, starts: number) =>
+    findEquilibria(system, at(lambda), { guess, starts, keepOutsideBox: true }).equilibria.map((e) => ({ state: e.state, parameter: lambda }));
+  const further = [
+    ...ends.flatMap((lambda) => searchAt(lambda, EQUILIBRIA.extraStarts)),
+    ...probes.flatMap((lambda) => searchAt(lambda, EQUILIBRIA.probeStarts)),
+  ];
   const starts = [...fromStarts, ...further];
 
   // 2. Follow every branch through them.
@@ -135,7 +138,7 @@ export function sweep(model: Model, opts: SweepOptions, hooks: TraceHooks = {}):
     warnMargin: opts.warnMargin ?? MARGIN.warn,
     failMargin: opts.failMargin ?? MARGIN.fail,
     nominal,
-    searchedAt: [first!, ...others],
+    searchedAt: [first!, ...ends, ...probes],
     ...(operating.status === 'converged' && { operatingState: operating.x }),
   });
   return { system: prepared.system, starts, trace, report };

@@ -289,7 +289,8 @@ describe('sweep()', () => {
     // A probe exactly on a branch point (x = 0 at lam = 0 in a range symmetric about 0) starts branches
     // with no unique direction; equal parts with the probe at the golden-section point avoid 0 and the middle.
     for (const [from, to] of [[-1, 1], [0, 1], [1, 0], [-3, 5]] as const) {
-      const probes = searchValues(from, to, 99, 7).slice(2);
+      const { main, probes } = searchValues(from, to, 99, 7);
+      expect(main).toEqual([from, to]);
       expect(probes).toHaveLength(7);
       for (const v of probes) {
         const u = (v - from) / (to - from);
@@ -297,7 +298,7 @@ describe('sweep()', () => {
         if (from < 0 && to > 0) expect(Math.abs(v)).toBeGreaterThan(0.01 * (to - from));
       }
     }
-    expect(searchValues(0, 1, 0.5, 3)).toEqual([0, 0.5, 1, ...[0, 1, 2].map((i) => (i + (3 - Math.sqrt(5)) / 2) / 3)]);
+    expect(searchValues(0, 1, 0.5, 3)).toEqual({ main: [0, 0.5, 1], probes: [0, 1, 2].map((i) => (i + (3 - Math.sqrt(5)) / 2) / 3) });
   });
 
   it('words a fold by what is lost: the reactor\'s upper fold joins two unstable states', () => {
