@@ -117,6 +117,7 @@ interface SweepFlags extends Common {
   maxStep?: string;
   maxPoints?: string;
   probes?: string;
+  log?: boolean;
   warnMargin?: string;
   failMargin?: string;
   plot?: string;
@@ -135,6 +136,7 @@ async function sweepCommand(file: string, f: SweepFlags, worker: SweepWorker): P
     ...(f.maxStep !== undefined && { maxStep: positive('--max-step', f.maxStep) }),
     ...(f.maxPoints !== undefined && { maxPoints: parseWholeNumber('--max-points', f.maxPoints) }),
     ...(f.probes !== undefined && { probes: parseWholeNumber('--probes', f.probes, 0) }),
+    ...(f.log === true && { log: true }),
     ...(f.warnMargin !== undefined && { warnMargin: fraction('--warn-margin', f.warnMargin) }),
     ...(f.failMargin !== undefined && { failMargin: fraction('--fail-margin', f.failMargin) }),
   };
@@ -226,6 +228,7 @@ function program(sweepWorker: () => SweepWorker): Command {
     .option('--out <DIR>', 'output folder (default: out/<model file name>-<NAME>)')
     .addOption(setOption())
     .addOption(startOption())
+    .option('--log', 'step the parameter on a logarithmic scale, for a range over decades (A and B positive; --step and --max-step then in decades)')
     .option('--step <H>', 'first step along the branch (parameter units; default 1% of the range)')
     .option('--max-step <H>', 'largest step along the branch (default 2% of the range)')
     .option('--max-points <N>', 'point budget per branch (default 2000)')

@@ -87,6 +87,7 @@ export const message = {
   badAssignment: (option: string, text: string) =>
     `${option} expects NAME=VALUE with a finite number, got "${text}"`,
   badNumber: (option: string, text: string) => `${option} expects a finite number, got "${text}"`,
+  logRange: (from: number, to: number) => `--log needs a range of positive values, got ${from} to ${to}`,
   startOutsideBounds: (name: string, value: number, min?: number, max?: number) =>
     `--start ${name}=${value} lies outside the bounds the model gives ${name} (${min ?? '-infinity'} to ${max ?? 'infinity'})`,
   badInteger: (option: string, text: string, least: 0 | 1) =>

@@ -20,6 +20,7 @@ import { newton } from './solve/newton.js';
 import { traceBranches, type StartEquilibrium } from './trace/traceBranches.js';
 import { traceSettings } from './trace/traceSettings.js';
 import type { Model, NewtonResult, Report, Trace, TraceHooks, TraceSettings } from './types.js';
+import { inLogParameter, traceInParameter } from './logParameter.js';
 import { inLongerTime, timeFactor, traceInModelTime } from './timeUnit.js';
 import { VERSION } from './version.js';
 
@@ -37,6 +38,8 @@ export interface SweepOptions {
   maxStep?: number;
   /** Point budget per branch. */
   maxPoints?: number;
+  /** Sweep over decades: steps in log10 of the parameter (from and to must be positive). */
+  log?: boolean;
   /** How many values inside the range equilibria are searched for at too (searchValues; default: probeCount). */
   probes?: number;
   warnMargin?: number;
@@ -96,49 +99,58 @@ function settingsFor(k: number, opts: SweepOptions): TraceSettings {
 export function sweep(model: Model, opts: SweepOptions, hooks: TraceHooks = {}): SweepResult {
   const k = parameterIndex(model, opts.vary);
   if (!(opts.from !== opts.to)) throw new UsageError(message.emptyRange(opts.from, opts.to));
+  const log = opts.log === true;
+  if (log && !(opts.from > 0 && opts.to > 0)) throw new UsageError(message.logRange(opts.from, opts.to));
   const prepared = prepare(model, opts);
   assertIsolatedEquilibria(prepared);
   const { params, guess } = prepared;
-  // A slow model is computed in a longer time unit, its rates given back in its own (timeUnit.ts).
-  const r = timeFactor(prepared.system, params, guess);
-  const system = inLongerTime(prepared.system, r);
   const nominal = params[k]!;
+  // The continuation runs in λ itself, or with --log in u = log10 λ (logParameter.ts); a slow model
+  // in a longer time unit, its rates given back in its own (timeUnit.ts).
+  const toU = (v: number) => (log ? Math.log10(v) : v);
+  const [from, to] = [toU(opts.from), toU(opts.to)];
+  // Back from u to λ, exactly the values given where u came from one.
+  const fromU = (u: number) => (!log ? u : u === from ? opts.from : u === to ? opts.to : u === toU(nominal) ? nominal : 10 ** u);
+  const r = timeFactor(prepared.system, params, guess);
+  const system = inLongerTime(log ? inLogParameter(prepared.system, k) : prepared.system, r);
 
   // 1. Every equilibrium the search finds at the start of the range (the guess is tried first),
   //    then at the nominal value, at the end of the range and at the probes inside it, for branches
   //    that do not reach the start of the range (the far side of an S-curve, an isola). Starts on a
   //    branch already traced are skipped by the trace.
-  const at = (lambda: number) => {
+  const at = (u: number) => {
     const q = params.slice();
-    q[k] = lambda;
+    q[k] = u;
     return q;
   };
-  const { main: [first, ...ends], probes } = searchValues(opts.from, opts.to, nominal, opts.probes ?? probeCount(system.n));
+  const { main: [first, ...ends], probes } = searchValues(from, to, toU(nominal), opts.probes ?? probeCount(system.n));
   const fromStarts = findEquilibria(system, at(first!), { guess, keepOutsideBox: true }).equilibria.map((e) => e.state);
   if (fromStarts.length === 0) {
-    const tried = newtonAt(system, at(opts.from), guess);
+    const tried = newtonAt(system, at(from), guess);
     throw new NumericalError(message.noEquilibriumAtStart(opts.vary, opts.from, tried.residual, tried.iterations));
   }
-  const searchAt = (lambda: number, starts: number) =>
-    findEquilibria(system, at(lambda), { guess, starts, keepOutsideBox: true }).equilibria.map((e) => ({ state: e.state, parameter: lambda }));
+  const searchAt = (u: number, starts: number) =>
+    findEquilibria(system, at(u), { guess, starts, keepOutsideBox: true }).equilibria.map((e) => ({ state: e.state, parameter: u }));
   const further = [
-    ...ends.flatMap((lambda) => searchAt(lambda, EQUILIBRIA.extraStarts)),
-    ...probes.flatMap((lambda) => searchAt(lambda, EQUILIBRIA.probeStarts)),
+    ...ends.flatMap((u) => searchAt(u, EQUILIBRIA.extraStarts)),
+    ...probes.flatMap((u) => searchAt(u, EQUILIBRIA.probeStarts)),
   ];
   const starts = [...fromStarts, ...further];
 
   // 2. Follow every branch through them.
-  const trace = traceInModelTime(traceBranches(system, params, settingsFor(k, opts), starts, hooks), r);
+  const traced = traceInModelTime(traceBranches(system, at(toU(nominal)), settingsFor(k, { ...opts, from, to }), starts, hooks), r);
+  const trace = log ? traceInParameter(traced, opts.from, opts.to) : traced;
 
   // 3. The operating state: where Newton from the guess lands at the nominal value.
-  const operating = newtonAt(system, params, guess);
-  const report = buildReport(trace, system.info, {
+  const operating = newtonAt(system, at(toU(nominal)), guess);
+  const report = buildReport(trace, prepared.system.info, {
     parameter: opts.vary,
     version: VERSION,
     warnMargin: opts.warnMargin ?? MARGIN.warn,
     failMargin: opts.failMargin ?? MARGIN.fail,
     nominal,
-    searchedAt: [first!, ...ends, ...probes],
+    searchedAt: [first!, ...ends, ...probes].map(fromU),
+    parameterScale: log ? 'log' : 'linear',
     ...(operating.status === 'converged' && { operatingState: operating.x }),
   });
   return { system: prepared.system, starts, trace, report };

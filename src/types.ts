@@ -370,8 +370,11 @@ export interface Report {
   parameter: string;
   unit?: string;
   range: { from: number; to: number };
-  /** searchedAt: the parameter values where equilibria were searched for (starts of the branches). */
-  settings: TraceSettings & { warnMargin: number; failMargin: number; searchedAt: number[] };
+  /**
+   * searchedAt: the parameter values where equilibria were searched for (starts of the branches);
+   * parameterScale: 'log' when the steps (ds, dsMin, dsMax) were taken in log10 of the parameter (--log).
+   */
+  settings: TraceSettings & { warnMargin: number; failMargin: number; searchedAt: number[]; parameterScale: 'linear' | 'log' };
   branches: ReportBranch[];
   events: ReportEvent[];
   margin: Margin | null;

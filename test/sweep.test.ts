@@ -301,6 +301,44 @@ describe('sweep()', () => {
     expect(searchValues(0, 1, 0.5, 3)).toEqual({ main: [0, 0.5, 1], probes: [0, 1, 2].map((i) => (i + (3 - Math.sqrt(5)) / 2) / 3) });
   });
 
+  it('sweeps over decades with --log: the same special points, and points spread over every decade', () => {
+    // The chemostat of the bound test above (Monod 1950): transcritical point at D* = mu s0/(K + s0),
+    // branch s = K D/(mu − D) (analytic), swept from 1e-4 to 0.6.
+    const model = loadModel([
+      'states: { s: { start: 1, min: 0 }, x: { start: 1, min: 0 } }',
+      'parameters: { D: 0.3, s0: 10, mu: 0.5, K: 1, Y: 0.5 }',
+      'equations:', '  s: D*(s0 - s) - mu*s/(K + s)*x/Y', '  x: (mu*s/(K + s) - D)*x', '',
+    ].join('\n'), 'chemostat.yaml');
+    const star = (0.5 * 10) / (1 + 10);
+    const linear = sweep(model, { vary: 'D', from: 1e-4, to: 0.6 }).report;
+    const { report, trace } = sweep(model, { vary: 'D', from: 1e-4, to: 0.6, log: true });
+    expect(trace.warnings).toEqual([]);
+    expect(report.settings.parameterScale).toBe('log');
+    expect(report.range).toEqual({ from: 1e-4, to: 0.6 });
+    expect(report.settings.searchedAt.slice(0, 3)).toEqual([1e-4, 0.3, 0.6]);
+    expect(report.events.map((e) => e.type)).toEqual(linear.events.map((e) => e.type));
+    expect(Math.abs(report.events[0]!.parameter - star)).toBeLessThan(1e-10 * star);
+    const operating = report.branches[0]!.points;
+    expect(operating[0]!.parameter).toBe(1e-4);
+    for (const q of operating) expect(Math.abs(q.state.s! - q.parameter / (0.5 - q.parameter))).toBeLessThan(1e-7);
+    // Every decade from 1e-4 to 0.1 holds several points; the linear sweep crosses the lowest three in one step.
+    for (let d = -4; d < -1; d++) {
+      const inDecade = (b: typeof report) => b.branches[0]!.points.filter((q) => q.parameter >= 10 ** d && q.parameter < 10 ** (d + 1)).length;
+      expect(inDecade(report), `decade 1e${d}`).toBeGreaterThanOrEqual(5);
+      if (d < -2) expect(inDecade(linear), `decade 1e${d}`).toBeLessThanOrEqual(1);
+    }
+  });
+
+  it('gives the same Hopf point and first Lyapunov coefficient stepping in the parameter or in its logarithm', () => {
+    // Brusselator (Prigogine & Lefever 1968): Hopf at b = 1 + a² = 2, ω = a = 1; l1 involves derivatives in x only.
+    const model = readModelFile('models/brusselator.yaml');
+    const [lin, log] = [false, true].map((l) => sweep(model, { vary: 'b', from: 0.5, to: 4.5, log: l }).report.events[0]!);
+    expect(Math.abs(log!.parameter - 2)).toBeLessThan(1e-10);
+    expect(log!.lyapunov! / lin!.lyapunov!).toBeCloseTo(1, 9);
+    expect(log!.frequency).toBeCloseTo(1, 9);
+    expect(() => sweep(model, { vary: 'b', from: 0, to: 4.5, log: true })).toThrow(new UsageError(message.logRange(0, 4.5)));
+  });
+
   it('words a fold by what is lost: the reactor\'s upper fold joins two unstable states', () => {
     // Uppal, Ray & Poore (1974) form with B = 14, beta = 2 (models/cooled-tank-reactor.yaml): along the
     // S-curve the lower sheet is stable up to the fold near Da = 0.1057; the middle sheet is a saddle and

@@ -16,6 +16,8 @@ export interface ReportOptions {
   nominal?: number;
   /** Parameter values where equilibria were searched for (the branches' starts); default: the range's ends. */
   searchedAt?: readonly number[];
+  /** How the parameter was stepped: in itself, or in its logarithm (--log). Default linear. */
+  parameterScale?: 'linear' | 'log';
   /** The state the plant runs at, to pick the branch for the design margin (see computeMargin). */
   operatingState?: Float64Array;
 }
@@ -43,6 +45,7 @@ export function buildReport(trace: Trace, info: ModelInfo, opts: ReportOptions):
     settings: {
       ...trace.settings, warnMargin: opts.warnMargin, failMargin: opts.failMargin,
       searchedAt: [...(opts.searchedAt ?? [trace.settings.from, trace.settings.to])],
+      parameterScale: opts.parameterScale ?? 'linear',
     },
     branches: trace.branches.map((b) => reportBranch(b, trace.events, names)),
     events: trace.events.map((e) => reportEvent(e, names, touchesStable(e, trace.branches))),

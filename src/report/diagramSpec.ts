@@ -108,7 +108,8 @@ export function diagramSpec(report: Report, opts: DiagramOptions = {}): TopLevel
   // Line rows carry only what the lines draw (a model of a hundred states would otherwise put
   // every state into every row of diagram.vl.json and of the page).
   const lineFields = ['parameter', ...all.map((p) => p.field)];
-  const branches = thinLines(withNorm(branchRows(report), names.length, norm), lineFields)
+  const logX = report.settings.parameterScale === 'log';
+  const branches = thinLines(withNorm(branchRows(report), names.length, norm), lineFields, undefined, logX ? ['parameter'] : [])
     .map((r) => pick(r, ['branch', 'run', 'index', 'stability', ...lineFields]));
   const style = chartStyle(report, specials);
 
@@ -148,10 +149,14 @@ export function diagramSpec(report: Report, opts: DiagramOptions = {}): TopLevel
       mark: { type: 'rule', clip: true, color: NOMINAL_COLOUR, strokeWidth: 1.5, opacity: 0.8 },
       encoding: { x: style.x },
     };
+    // The label reads to the right of the rule, or to its left in the right third of the axis (it would be cut off).
+    const right = axisFraction(report, nominal.parameter) > 2 / 3;
     const label: Layer = {
       name: DIAGRAM_MARKS.nominalLabel,
       data: { values: [nominal] },
-      mark: { type: 'text', clip: true, align: 'left', baseline: 'top', dx: 4, color: NOMINAL_COLOUR, fontSize: 11 },
+      mark: {
+        type: 'text', clip: true, align: right ? 'right' : 'left', baseline: 'top', dx: right ? -4 : 4, color: NOMINAL_COLOUR, fontSize: 11,
+      },
       encoding: { x: style.x, y: { value: 4 }, text: { field: 'label', type: 'nominal' } },
     };
     return labelled ? [rule, label] : [rule];
@@ -193,7 +198,8 @@ function chartStyle(report: Report, specials: readonly DiagramRow[]) {
     present,
     x: {
       field: 'parameter', type: 'quantitative' as const, title: withUnit(report.parameter, report.unit),
-      scale: { zero: false, nice: false },
+      // A sweep over decades (--log) is drawn on a logarithmic axis.
+      scale: report.settings.parameterScale === 'log' ? { type: 'log' as const, nice: false } : { zero: false, nice: false },
     },
     stroke: {
       field: 'branch', type: 'nominal' as const, legend: { title: 'Branch', ...LINE_LEGEND },
@@ -215,6 +221,14 @@ function chartStyle(report: Report, specials: readonly DiagramRow[]) {
 }
 
 /** The nominal design value with its margin label, when it lies inside the traced range. */
+/** Where a parameter value sits along the diagram's horizontal axis, 0 at its left end and 1 at its right. */
+function axisFraction(report: Report, value: number): number {
+  const lo = Math.min(report.range.from, report.range.to);
+  const hi = Math.max(report.range.from, report.range.to);
+  const f = (v: number) => (report.settings.parameterScale === 'log' ? Math.log10(v) : v);
+  return (f(value) - f(lo)) / (f(hi) - f(lo));
+}
+
 function nominalDatum(report: Report): { parameter: number; label: string } | null {
   const m = report.margin;
   const lo = Math.min(report.range.from, report.range.to);

@@ -22,7 +22,7 @@ const KEY_ORDER = [
   'maxBranches', 'stopped', 'origin', 'points', 'maxRealPart', 'stability', 'branches', 'events', 'eigenvalues', 're',
   'im', 'meaning', 'residual', 'iterations', 'step', 'test', 'quantity', 'before', 'after', 'foldCoefficient', 'lyapunov', 'criticality', 'frequency', 'period',
   'newBranches', 'corner', 'margin', 'operatingStable', 'operatingUnstableCount', 'below', 'above', 'distance', 'relative', 'nearestRelative', 'status', 'warnMargin',
-  'failMargin', 'searchedAt', 'warnings', 'interrupted', 'caution',
+  'failMargin', 'searchedAt', 'parameterScale', 'warnings', 'interrupted', 'caution',
 ];
 const RANK = new Map(KEY_ORDER.map((k, i) => [k, i]));
 /** Objects under these keys are maps keyed by model names: their order is the model's. */

@@ -28,7 +28,8 @@ function sweepSection(r: Report): string[] {
   const others = r.model.parameters.filter((p) => p.name !== r.parameter);
   const lines = [
     '## Sweep', '',
-    `- Varied parameter: ${md(withUnit(r.parameter, r.unit))} from ${formatNumber(r.range.from)} to ${formatNumber(r.range.to)}.`,
+    `- Varied parameter: ${md(withUnit(r.parameter, r.unit))} from ${formatNumber(r.range.from)} to ${formatNumber(r.range.to)}` +
+      `${s.parameterScale === 'log' ? ', stepped on a logarithmic scale (step lengths below in decades)' : ''}.`,
     `- Other parameters: ${others.length === 0 ? 'none' : others.map((p) => `${md(p.name)} = ${md(valueWithUnit(formatNumber(p.value), p.unit))}`).join(', ')}.`,
     `- Step length: first ${formatNumber(s.ds)}, smallest ${formatNumber(s.dsMin)}, largest ${formatNumber(s.dsMax)}; at most ${s.maxPoints} points per branch and ${s.maxBranches} branches.`,
     `- Starts: equilibria searched for at ${md(r.parameter)} = ${[...s.searchedAt].sort((a, b) => a - b).map((v) => formatNumber(v)).join(', ')}; ` +

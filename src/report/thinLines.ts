@@ -6,6 +6,7 @@
  * every panel together. With the default tolerance (DIAGRAM_THIN_TOL) a panel 600 pixels wide is off
  * by less than 0.1 pixel, and by less than 1 pixel at tenfold zoom.
  *
+ * Fields named in `logFields` (a parameter axis drawn on a log scale) are measured in their logarithm.
  * Rows are kept in their order; the first and last row of a run, and every row with a missing
  * (null) value in a plotted field, are always kept. report.json and points.csv keep every point.
  */
@@ -15,12 +16,19 @@ import type { DiagramRow } from './diagramData.js';
 /** Default tolerance, as a fraction of each field's spread. Common practice for screen output. */
 export const DIAGRAM_THIN_TOL = 1e-4;
 
-export function thinLines(rows: readonly DiagramRow[], fields: readonly string[], tol = DIAGRAM_THIN_TOL): DiagramRow[] {
+export function thinLines(
+  rows: readonly DiagramRow[], fields: readonly string[], tol = DIAGRAM_THIN_TOL, logFields: readonly string[] = [],
+): DiagramRow[] {
+  // A field drawn on a logarithmic axis is measured in its logarithm.
+  const value = (r: DiagramRow, f: string): unknown => {
+    const v = r[f];
+    return typeof v === 'number' && logFields.includes(f) ? Math.log10(v) : v;
+  };
   const scale = fields.map((f) => {
     let lo = Infinity;
     let hi = -Infinity;
     for (const r of rows) {
-      const v = r[f];
+      const v = value(r, f);
       if (typeof v === 'number') {
         lo = Math.min(lo, v);
         hi = Math.max(hi, v);
@@ -35,7 +43,7 @@ export function thinLines(rows: readonly DiagramRow[], fields: readonly string[]
   rows.forEach((r, i) => {
     complete[i] = 1;
     fields.forEach((f, j) => {
-      const v = r[f];
+      const v = value(r, f);
       if (typeof v === 'number') coords[i * d + j] = v * scale[j]!;
       else complete[i] = 0;
     });

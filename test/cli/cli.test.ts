@@ -187,6 +187,7 @@ describe('bad input: one line, non-zero status, nothing written', () => {
       message.unknownParameter('Dx', ['Da', 'B', 'beta', 'coolant'])],
     ['from equal to to', ['sweep', REACTOR, '--vary', 'Da', '--from', '0.1', '--to', '0.1'], 2, message.emptyRange(0.1, 0.1)],
     ['a value that is not a number', ['sweep', REACTOR, '--vary', 'Da', '--from', 'abc', '--to', '1'], 2, message.badNumber('--from', 'abc')],
+    ['--log over a range that is not positive', ['sweep', REACTOR, '--vary', 'Da', '--from', '0', '--to', '0.2', '--log'], 2, message.logRange(0, 0.2)],
     ['a negative --probes', ['sweep', REACTOR, '--vary', 'Da', '--from', '0', '--to', '1', '--probes', '-1'], 2, message.badInteger('--probes', '-1', 0)],
     ['a fractional --max-points', ['sweep', REACTOR, '--vary', 'Da', '--from', '0', '--to', '1', '--max-points', '2.5'], 2, message.badInteger('--max-points', '2.5', 1)],
     ['a malformed --set', ['equilibria', REACTOR, '--set', 'Da'], 2, message.badAssignment('--set', 'Da')],

@@ -159,6 +159,18 @@ describe('diagramSpec', () => {
     expect(o.vconcat.flatMap((p) => p.layer).filter((l) => l.mark.type === 'rule').map((l) => l.name)).toEqual(['bt_eigenvalue_zero']);
   });
 
+  it('draws a sweep over decades on a logarithmic parameter axis, with the nominal label kept inside the panel', () => {
+    const linear = view(diagramSpec(sCurve())).vconcat[0]!.layer.find((l) => l.name === 'bt_state0_lines')!;
+    expect(linear.encoding.x?.scale).toEqual({ zero: false, nice: false });
+    const report = buildReport(sCurveTrace(), info('S-shaped test model', 'lambda', 'mol/L'), { ...opts, parameterScale: 'log' as const });
+    const spec = diagramSpec({ ...report, range: { from: 1e-3, to: 1 }, margin: { ...report.margin!, nominal: 0.5 } });
+    const layers = view(spec).vconcat[0]!.layer;
+    expect(layers.find((l) => l.name === 'bt_state0_lines')!.encoding.x?.scale).toEqual({ type: 'log', nice: false });
+    // 0.5 lies at 0.9 of the log axis from 1e-3 to 1: the label reads to the left of its rule.
+    expect(layers.find((l) => l.name === 'bt_nominal_label')!.mark).toMatchObject({ align: 'right', dx: -4 });
+    expect(schemaErrors(VEGA_LITE_SCHEMA, spec)).toEqual([]);
+  });
+
   it('plots only the chosen states, or the Euclidean norm of the state', () => {
     const only = view(diagramSpec(sCurve(), { plot: ['y'] }));
     expect(only.vconcat.map((p) => p.layer.find((l) => l.mark.type === 'line')!.name)).toEqual(['bt_state1_lines', 'bt_eigenvalues_lines']);
@@ -192,6 +204,7 @@ describe('diagramSpec', () => {
       diagramSpec(sCurve()), diagramSpec(sCurve(), { plot: 'norm' }), diagramSpec(sCurve(), { plot: ['y', 'x'] }),
       diagramSpec(buildReport(hopfTrace(-1), info('H', 'mu'), mu)),
       diagramSpec(buildReport(transcriticalTrace(), info('T', 'lambda'), opts)),
+      diagramSpec(buildReport(hopfTrace(-1), info('H', 'mu'), { ...mu, parameterScale: 'log' })),
     ];
     for (const spec of specs) {
       const { vega, warnings } = await compileChart(spec);

@@ -42,6 +42,13 @@ function worstGap(all: readonly DiagramRow[], kept: readonly DiagramRow[]): numb
 }
 
 describe('thinLines (Ramer 1972; Douglas & Peucker 1973)', () => {
+  it('measures a field drawn on a log axis in its logarithm: a straight line there keeps its two ends only', () => {
+    // v0 = log10(parameter) is straight on a log axis and curved on a linear one.
+    const rows = curve(300, (u) => [10 ** (4 * u - 3), 4 * u - 3, 0]);
+    expect(thinLines(rows, FIELDS, DIAGRAM_THIN_TOL, ['parameter'])).toEqual([rows[0], rows[299]]);
+    expect(thinLines(rows, FIELDS).length).toBeGreaterThan(10);
+  });
+
   it('keeps only the two ends of a straight run', () => {
     const rows = curve(500, (u) => [u, 3 * u - 1, -2 * u]);
     expect(thinLines(rows, FIELDS)).toEqual([rows[0], rows[499]]);
