@@ -216,6 +216,9 @@ export const message = {
   traceHiddenCrossings: (param: string, a: number, b: number) =>
     `between ${param} = ${a.toPrecision(8)} and ${b.toPrecision(8)} several eigenvalues cross the imaginary ` +
     `axis together even at the smallest step (a degenerate point, e.g. a double zero eigenvalue); it is not located`,
+  traceNarrowWindow: (param: string, a: number, b: number) =>
+    `between ${param} = ${a.toPrecision(8)} and ${b.toPrecision(8)} the stability may change and change back within ` +
+    'a stretch shorter than the smallest step (the largest real part of the eigenvalues comes to zero there); it is not located',
   traceLocateFailed: (what: string, branch: number, param: string, a: number, b: number, status: string) =>
     `a ${what} on branch ${branch} between ${param} = ${a.toPrecision(8)} and ${b.toPrecision(8)} ` +
     `could not be located (${status}); it is not reported`,

@@ -7,7 +7,8 @@
  * than maxTurnDegrees (keeps the predictor error, about κ·ds²/2, small against the branch
  * spacing), or when the step hides eigenvalue crossings (hiddenCrossings.ts: two crossings, a
  * crossing beside a pair turning real, which the test functions cannot tell, or a crossing pair
- * that cannot be told from another one after the step; halving stops at dsMin); grow it by
+ * that cannot be told from another one after the step, or the largest real part of the eigenvalues
+ * may cross zero and back within the step: hiddenExcursion.ts; halving stops at dsMin); grow it by
  * growFactor after a correction of at most easyIterations Newton steps; clamp to [dsMin, dsMax],
  * where dsMax grows with the size a state has reached far beyond its typical size (TRACE.farFrom:
  * a branch running off to infinity is followed in steps proportional to that size, and stops as
@@ -31,6 +32,7 @@ import { correctPoint } from './correctPoint.js';
 import { cornerScratch, cornerStep, jacobianJumps, pastCorner } from './corner.js';
 import type { ExtendedSystem } from './extendedSystem.js';
 import { hiddenCrossings } from './hiddenCrossings.js';
+import { hiddenExcursion } from './hiddenExcursion.js';
 import { landOnBound } from './landOnBound.js';
 import { rawPoint, type OnBranch, type RawPoint } from './rawPoint.js';
 import { firstCrossing, landOnStateBound, scaledBounds, type BoundCrossing } from './stateBound.js';
@@ -137,6 +139,14 @@ export function walkBranch(ctx: WalkContext, start: RawPoint, budget: number): W
         continue;
       }
       if (hidden === 'crossings') ctx.warnings.push(message.traceHiddenCrossings(ctx.name, cur.z[n]!, lambda));
+    }
+    const prev = points.length >= 2 ? points[points.length - 2]! : undefined;
+    if (hidden === null && prev !== undefined && hiddenExcursion(prev, cur, point)) {
+      if (ds * TRACE.shrinkFactor >= settings.dsMin) {
+        ds *= TRACE.shrinkFactor;
+        continue;
+      }
+      ctx.warnings.push(message.traceNarrowWindow(ctx.name, cur.z[n]!, lambda));
     }
     points.push(point);
     cur = point;

@@ -132,6 +132,35 @@ describe('traceBranches', () => {
   });
 });
 
+describe('traceBranches with a window of the other stability shorter than a step', () => {
+  // Analytic: with mu = eps − (lam − 1/2)², the oscillator x' = mu x − y − x r², y' = x + mu y − y r² has
+  // Hopf points at lam = 1/2 ± sqrt(eps) (supercritical, l1 < 0), and x' = mu x − x³ has pitchforks there.
+  // For eps = 1e-6 and 1e-8 the window is 2e-3 and 2e-4 wide, far shorter than a step (0.02 of the
+  // range); at eps = −1e-6 the largest real part only comes near zero and nothing is found.
+  const model = (eps: number, oscillator: boolean) => textSystem([
+    oscillator ? 'states: { x: 0, y: 0 }' : 'states: { x: 0 }',
+    `parameters: { lam: 0, eps: ${eps} }`, 'definitions:', '  mu: eps - (lam - 0.5)^2', 'equations:',
+    ...(oscillator ? ['  x: mu*x - y - x*(x^2 + y^2)', '  y: x + mu*y - y*(x^2 + y^2)'] : ['  x: mu*x - x^3']),
+  ].join('\n'));
+  it('finds both Hopf points of a narrow bubble of oscillations, and both pitchforks of a narrow unstable window', () => {
+    for (const oscillator of [true, false]) {
+      for (const eps of [1e-4, 1e-6, 1e-8]) {
+        const system = model(eps, oscillator);
+        const trace = traceBranches(system, Float64Array.of(0, eps), traceSettings(0, 0, 1), [new Float64Array(oscillator ? 2 : 1)]);
+        const label = `${oscillator ? 'Hopf' : 'pitchfork'}, eps = ${eps}`;
+        const events = trace.events.filter((e) => e.branch === 1);
+        expect(events.map((e) => e.type), label).toEqual(oscillator ? ['hopf', 'hopf'] : ['pitchfork', 'pitchfork']);
+        const at = events.map((e) => e.parameter).sort((a, b) => a - b);
+        expectClose(at[0]!, 0.5 - Math.sqrt(eps), { rel: 1e-9 }, label);
+        expectClose(at[1]!, 0.5 + Math.sqrt(eps), { rel: 1e-9 }, label);
+      }
+      const near = traceBranches(model(-1e-6, oscillator), Float64Array.of(0, -1e-6), traceSettings(0, 0, 1), [new Float64Array(oscillator ? 2 : 1)]);
+      expect(near.events).toEqual([]);
+      expect(near.warnings).toEqual([]);
+    }
+  });
+});
+
 describe('traceBranches limits', () => {
   it('stops starting branches at maxBranches and says so in the warnings', () => {
     // x' = λx − x³: the pitchfork at λ = 0 would start a second branch (analytic: x² = λ).

@@ -173,6 +173,30 @@ describe('special points of random families', () => {
     ), repeatable(69_314, 25));
   });
 
+  it('finds both Hopf points of a random bubble of oscillations narrower than a step, beside a damped mode', () => {
+    // Analytic: r' = (eps − (λ − c)²)r − r³ with frequency w has supercritical Hopf points at λ = c ± sqrt(eps);
+    // a third state decays at rate d. Windows from 2e-4 to 0.06 of the range: most are shorter than one step.
+    fc.assert(fc.property(
+      fc.double({ min: 0.15, max: 0.85, noNaN: true }), fc.double({ min: -8, max: -3, noNaN: true }),
+      fc.double({ min: 0.5, max: 3, noNaN: true }), fc.double({ min: 0.05, max: 2, noNaN: true }), fc.boolean(),
+      (c, logEps, w, d, reverse) => {
+        const eps = 10 ** logEps;
+        const mu = `(${num(eps)} - (lam - ${num(c)})^2)`;
+        const bubble = system([
+          'states: { a: 0, b: 0, z: 0 }', 'parameters: { lam: 0 }', 'equations:',
+          `  a: ${mu}*a - ${num(w)}*b - a*(a^2 + b^2)`, `  b: ${num(w)}*a + ${mu}*b - b*(a^2 + b^2)`, `  z: -${num(d)}*z`,
+        ].join('\n'));
+        const [from, to] = reverse ? [1, 0] : [0, 1];
+        const trace = traceBranches(bubble, Float64Array.of(from), traceSettings(0, from, to), [new Float64Array(3)]);
+        const at = trace.events.filter((e) => e.type === 'hopf').map((e) => e.parameter).sort((x, y) => x - y);
+        expect(at).toHaveLength(2);
+        expectClose(at[0]!, c - Math.sqrt(eps), { rel: 1e-9 }, 'Hopf at c − sqrt(eps) (analytic)');
+        expectClose(at[1]!, c + Math.sqrt(eps), { rel: 1e-9 }, 'Hopf at c + sqrt(eps) (analytic)');
+        for (const e of trace.events) expect(e.criticality).toBe('supercritical');
+      },
+    ), repeatable(31_415, 20));
+  });
+
   it('on x\' = y, y\' = λ + b·x + x² + s·x·y finds the fold, and the Hopf point for b < 0 but not the neutral saddle for b > 0', () => {
     // Analytic: equilibria y = 0, x² + b·x + λ = 0 fold at λ = b²/4 (x = −b/2). The Jacobian
     // [[0, 1], [b + 2x, s·x]] has trace s·x and determinant −(b + 2x): at x = 0 (λ = 0) the trace
